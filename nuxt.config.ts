@@ -1,0 +1,36 @@
+// Plumbline: Nuxt 4 app. Secrets and URLs come from the environment at run time
+// (NUXT_* variables override runtimeConfig); scripts/start.sh sets safe local
+// defaults for the demo.
+export default defineNuxtConfig({
+  compatibilityDate: '2026-11-01',
+  devtools: { enabled: false },
+  telemetry: false,
+  modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@vueuse/nuxt', '@nuxt/eslint'],
+  css: ['~/assets/css/main.css'],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en' },
+      title: 'Plumbline',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1' },
+        { name: 'description', content: 'Verification registry for Hermite-family numerical codes' },
+      ],
+      link: [{ rel: 'icon', type: 'image/svg+xml', href: '/favicon.svg' }],
+    },
+  },
+  runtimeConfig: {
+    databaseUrl: '',
+    session: {
+      name: 'plumbline-session',
+      password: '',
+      maxAge: 60 * 60 * 12,
+      cookie: { sameSite: 'lax', httpOnly: true, secure: false },
+    },
+    loginLimit: { perAccount: 5, perAddress: 20, windowMinutes: 15 },
+  },
+  nitro: {
+    experimental: { tasks: false },
+  },
+  typescript: { strict: true },
+  eslint: { config: { stylistic: false } },
+})
