@@ -1,0 +1,168 @@
+/**
+ * Certification: turning an enclosure of the exact value into digits.
+ *
+ * An enclosure is a midpoint with a radius that provably bounds the error.
+ * We round both ends of [mid − rad, mid + rad] to d significant digits
+ * (round half away from zero). Rounding is monotone, so when both ends give
+ * the same d-digit string every point of the enclosure does too: that string
+ * is the exact value correctly rounded to d digits. If the ends differ we try
+ * d − 1, d − 2, …, and report how many digits survived. No digit is returned
+ * unless it passed this check.
+ */
+import Decimal from 'decimal.js'
+import { bitLength } from '../numeric/bits'
+import { pow10 } from '../numeric/exact'
+
+export type CertificationMethod = 'exact' | 'rigorous-bound' | 'precision-agreement'
+
+export interface CertifiedValue {
+  /** Correctly rounded significant digits, in e-notation; '0' for an exact zero. */
+  value: string
+  /** How many significant digits are proven (0: none could be proven). */
+  digits: number
+  /** The value is exact (not merely rounded from an enclosure). */
+  exact: boolean
+}
+
+const LOG10_2 = Math.log10(2)
+
+export function formatDigits(neg: boolean, digits: string, e10: number): string {
+  const mant = digits.length > 1 ? `${digits[0]}.${digits.slice(1)}` : digits
+  return `${neg ? '-' : ''}${mant}e${e10 >= 0 ? '+' : ''}${e10}`
+}
+
+/** round(v · 10^s / 2^F) for v > 0, half away from zero. */
+function scaleRound(v: bigint, s: number, F: number): bigint {
+  if (s >= 0) {
+    const t = v * pow10(s)
+    return F > 0 ? (t + (1n << BigInt(F - 1))) >> BigInt(F) : t << BigInt(-F)
+  }
+  const den = pow10(-s) << BigInt(Math.max(F, 0))
+  const t = F < 0 ? v << BigInt(-F) : v
+  return (2n * t + den) / (2n * den)
+}
+
+/**
+ * Round the enclosure [M − R, M + R] · 2^−F to at most d significant digits.
+ * R ≥ 0. Returns digits = 0 when the sign or leading digit is not proven.
+ */
+export function roundFixedBall(M: bigint, R: bigint, F: number, d: number): CertifiedValue {
+  if (R === 0n && M === 0n) return { value: '0', digits: d, exact: true }
+  let lo = M - R
+  let hi = M + R
+  if (lo <= 0n && hi >= 0n) return { value: '', digits: 0, exact: false }
+  const neg = hi < 0n
+  if (neg) { const t = -lo; lo = -hi; hi = t }
+  let e10 = Math.floor((bitLength(hi) - 1 - F) * LOG10_2)
+  for (let dd = d; dd >= 1; dd--) {
+    let nHi = 0n
+    for (let tries = 0; tries < 4; tries++) {
+      nHi = scaleRound(hi, dd - 1 - e10, F)
+      if (nHi >= pow10(dd)) e10++
+      else if (nHi < pow10(dd - 1)) e10--
+      else break
+    }
+    const nLo = scaleRound(lo, dd - 1 - e10, F)
+    if (nLo === nHi) {
+      return { value: formatDigits(neg, nHi.toString(), e10), digits: dd, exact: R === 0n && dd >= d }
+    }
+  }
+  return { value: '', digits: 0, exact: false }
+}
+
+/**
+ * Same check for a Decimal midpoint with a relative radius `rel` (a double;
+ * it is inflated slightly so that its own rounding never undershoots).
+ */
+export function roundDecimalBall(mid: Decimal, rel: number, d: number): CertifiedValue {
+  if (mid.isZero() && rel === 0) return { value: '0', digits: d, exact: true }
+  if (!(rel < 1) || !mid.isFinite()) return { value: '', digits: 0, exact: false }
+  const D = Decimal.clone({ precision: mid.sd() + 12, rounding: Decimal.ROUND_HALF_UP })
+  const m = new D(mid).abs()
+  const r = new D((rel * (1 + 1e-9)).toPrecision(17)).times(m).plus(m.times(`1e-${mid.sd() + 8}`))
+  const lo = m.minus(r)
+  const hi = m.plus(r)
+  const neg = mid.isNeg()
+  for (let dd = d; dd >= 1; dd--) {
+    const a = lo.toSignificantDigits(dd, Decimal.ROUND_HALF_UP)
+    const b = hi.toSignificantDigits(dd, Decimal.ROUND_HALF_UP)
+    if (a.eq(b)) {
+      const [coef, ex] = b.toExponential(dd - 1).split('e') as [string, string]
+      return { value: formatDigits(neg, coef.replace('.', ''), Number(ex)), digits: dd, exact: rel === 0 && dd >= d }
+    }
+  }
+  return { value: '', digits: 0, exact: false }
+}
+
+/**
+ * Agreement of two computations at different working precisions: keep the
+ * digits on which both agree after correct rounding of each, less nothing
+ * else. Used only where no rigorous bound is carried (see each caller).
+ */
+export function agreeDigits(lowP: Decimal, highP: Decimal, d: number): CertifiedValue {
+  if (lowP.isZero() && highP.isZero()) return { value: '0', digits: d, exact: false }
+  if (lowP.isZero() || highP.isZero() || lowP.isNeg() !== highP.isNeg()) return { value: '', digits: 0, exact: false }
+  const rel = lowP.minus(highP).abs().div(highP.abs()).toNumber()
+  // The difference is an estimate of the lower-precision error; demand a
+  // 100× margin before trusting a rounding of the higher-precision value.
+  return roundDecimalBall(highP, Math.max(rel * 100, 1e-300), d)
+}
+
+/** Working precision (bits) for d digits plus guard bits. */
+export const bitsFor = (d: number, guard = 24): number => Math.ceil(d / LOG10_2) + guard
+
+const LOG2_10 = Math.log2(10)
+
+/**
+ * Fast path of roundFixedBall for the hot loops: round the midpoint once and
+ * check, with a factor-2 margin, that the radius 2^log2R (units 2^−F) cannot
+ * reach a rounding boundary. Falls back to roundFixedBall when unsure.
+ */
+export function roundFixedFast(M: bigint, log2R: number, F: number, d: number): CertifiedValue {
+  if (M === 0n || log2R === -Infinity || F < 64) return roundFixedBall(M, ceilPow2Local(log2R), F, d)
+  const neg = M < 0n
+  const a = neg ? -M : M
+  const nf = Number(a)
+  const l2 = Number.isFinite(nf) ? Math.log2(nf) - F : bitLength(a) - 1 - F
+  let e10 = Math.floor(l2 * LOG10_2)
+  const Fb = BigInt(F)
+  const half = 1n << (Fb - 1n)
+  for (let tries = 0; tries < 3; tries++) {
+    const s = d - 1 - e10
+    if (s < 0) break
+    const t = a * pow10(s) + half
+    const q = t >> Fb
+    if (q >= pow10(d)) { e10++; continue }
+    if (q < pow10(d - 1)) { e10--; continue }
+    const frac = t - (q << Fb)
+    const top = Number(frac >> (Fb - 60n)) / 2 ** 60
+    const thr = 2 ** (log2R + s * LOG2_10 + 1 - F) + 2 ** -58
+    if (top > thr && 1 - top > thr) return { value: formatDigits(neg, q.toString(), e10), digits: d, exact: false }
+    break
+  }
+  return roundFixedBall(M, ceilPow2Local(log2R), F, d)
+}
+
+function ceilPow2Local(l2: number): bigint {
+  if (l2 === -Infinity) return 0n
+  if (l2 < 0) return 1n
+  const ip = Math.floor(l2)
+  if (ip < 52) return BigInt(Math.ceil(2 ** l2)) + 1n
+  return (BigInt(Math.ceil(2 ** (l2 - ip + 52))) + 1n) << BigInt(ip - 52)
+}
+
+/** Round an exact decimal to d significant digits (half away from zero). */
+export function roundExact(neg: boolean, coef: bigint, exp: number, d: number): CertifiedValue {
+  if (coef === 0n) return { value: '0', digits: d, exact: true }
+  const s = coef.toString()
+  let e10 = s.length - 1 + exp
+  let digits: string
+  if (s.length <= d) digits = s.padEnd(d, '0')
+  else {
+    let q = BigInt(s.slice(0, d))
+    if (Number(s[d]) >= 5) q += 1n
+    digits = q.toString()
+    if (digits.length > d) { digits = digits.slice(0, d); e10++ }
+  }
+  return { value: formatDigits(neg, digits, e10), digits: d, exact: true }
+}
