@@ -27,6 +27,8 @@ export interface RecurrenceRun {
   M: bigint[]
   /** log2 of the error radius of M[k], in units of 2^−F (−Infinity: exact). */
   log2R: number[]
+  /** log2 of A_k, the bound on |y_k| over [−X, X] (only when asked for). */
+  log2A?: number[]
 }
 
 const RESCALE = 2 ** 800
@@ -42,7 +44,7 @@ export function runRecurrence(family: Family, x: ExactDecimal, n: number, F: num
  * (delta = 0: x̃ is x), xa ≥ |x| + delta·2^−F.
  */
 export function runRecurrenceFixed(
-  family: Family, X: bigint, delta: number, xa: number, n: number, F: number,
+  family: Family, X: bigint, delta: number, xa: number, n: number, F: number, keepA = false,
 ): RecurrenceRun {
   const exact = delta === 0
   const shift = BigInt(family === 'H' ? F - 1 : F)
@@ -52,7 +54,8 @@ export function runRecurrenceFixed(
   const log2R: number[] = new Array(n + 1)
   M[0] = one
   log2R[0] = -Infinity
-  if (n === 0) return { F, M, log2R }
+  const log2A: number[] | undefined = keepA ? new Array(n + 1) : undefined
+  if (n === 0) return { F, M, log2R, log2A }
   M[1] = family === 'H' ? 2n * X : X
   // While every product is exact (dyadic x, e.g. 0 or 0.5) no error is added.
   let exactSoFar = exact
@@ -60,6 +63,7 @@ export function runRecurrenceFixed(
   let sc = 0
   let Ep = 0, E = 0, Ap = 1, A = c * xa
   log2R[1] = exact ? -Infinity : Math.log2(c * delta) // y_1' = c
+  if (log2A) { log2A[0] = 0; log2A[1] = Math.log2(c * xa) + 1e-9 }
   let yp = one, y = M[1]!
   for (let k = 1; k < n; k++) {
     const c2 = family === 'H' ? 2 * k : k
@@ -78,13 +82,14 @@ export function runRecurrenceFixed(
     if (A > RESCALE || E > RESCALE) {
       A /= RESCALE; Ap /= RESCALE; E /= RESCALE; Ep /= RESCALE; sc += 800
     }
+    if (log2A) log2A[k + 1] = Math.log2(A) + sc + 1e-9 + (k + 1) * 1e-13
     // Radius of y_{k+1} in units: E_{k+1} + c2(k+1)·A_k (the latter only if x̃ ≠ x).
     const c2n = family === 'H' ? 2 * (k + 1) : k + 1
     let l = E > 0 ? Math.log2(E) : -Infinity
     if (!exact) l = log2Add(l, Math.log2(c2n * Ap * delta))
     log2R[k + 1] = l === -Infinity ? l : l + sc + 1e-9 + (k + 1) * 1e-13
   }
-  return { F, M, log2R }
+  return { F, M, log2R, log2A }
 }
 
 /**
