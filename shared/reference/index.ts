@@ -57,7 +57,7 @@ type Parsed = Record<string, ExactDecimal | string>
 
 /** log10 |v| of an e-notation value string ('0' gives −Infinity). */
 function log10Abs(v: string): number {
-  const [m, e] = v.replace('-', '').split('e') as [string, string | undefined]
+  const [m, e] = v.replace(/^-/, '').split('e') as [string, string | undefined]
   return Math.log10(Number(m)) + (e ? Number(e) : 0)
 }
 
