@@ -1,0 +1,28 @@
+#!/usr/bin/env bash
+# `npm start`: the product with demo data on http://127.0.0.1:3000.
+# Installs and starts the `dev` MariaDB when needed, migrates, seeds, builds the
+# app when the sources changed, and serves it in the foreground (Ctrl-C stops
+# the web server; `npm run db -- stop dev` stops the database).
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+export PATH="/usr/sbin:$PATH"
+
+bash scripts/db.sh start dev
+export NUXT_DATABASE_URL="${NUXT_DATABASE_URL:-$(bash scripts/db.sh url dev)}"
+npx tsx scripts/migrate.ts
+npx tsx scripts/seed.ts
+
+stamp=.output/nitro.json
+if [ ! -f "$stamp" ] || [ -n "$(find app server shared public nuxt.config.ts tailwind.config.ts package-lock.json -newer "$stamp" -print -quit 2>/dev/null)" ]; then
+  echo "building the app…"
+  npx nuxt build >/dev/null
+fi
+
+if [ -z "${NUXT_SESSION_PASSWORD:-}" ]; then
+  echo "WARNING: NUXT_SESSION_PASSWORD is not set; using the development default. Set a secret of 32+ characters in production." >&2
+  export NUXT_SESSION_PASSWORD="plumbline-development-only-session-secret"
+fi
+export HOST="${HOST:-127.0.0.1}" PORT="${PORT:-3000}"
+echo "Plumbline on http://$HOST:$PORT (demo sign-ins are in README.md)"
+exec node .output/server/index.mjs

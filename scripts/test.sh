@@ -1,0 +1,49 @@
+#!/usr/bin/env bash
+# `npm test`: everything. Installs what is missing (Debian's MariaDB, Chromium,
+# python3-mpmath), starts a fresh `test` MariaDB, migrates and seeds it, builds
+# the app, serves it on 127.0.0.1:3100, runs the unit, API and browser projects,
+# and prints one closing line: `N passed, N failed`.
+set -euo pipefail
+root="$(cd "$(dirname "$0")/.." && pwd)"
+cd "$root"
+export NO_COLOR=1
+export PATH="/usr/sbin:$PATH"
+
+bash scripts/ensure-debian.sh mariadb-server mariadb-client chromium fonts-liberation python3-mpmath python3-gmpy2
+
+bash scripts/db.sh reset test >/dev/null
+export NUXT_DATABASE_URL="$(bash scripts/db.sh url test)"
+npx tsx scripts/migrate.ts
+npx tsx scripts/seed.ts
+
+mkdir -p test-results
+if [ "${PLUMBLINE_SKIP_BUILD:-0}" != 1 ] || [ ! -f .output/server/index.mjs ]; then
+  npx nuxt build >test-results/build.log 2>&1 || { tail -40 test-results/build.log; exit 1; }
+fi
+
+mkdir -p test-results
+port="${PLUMBLINE_TEST_PORT:-3100}"
+export PLUMBLINE_TEST_URL="http://127.0.0.1:$port"
+if curl -fsS -o /dev/null "$PLUMBLINE_TEST_URL/" 2>/dev/null; then
+  echo "port $port is already in use; stop what runs there or set PLUMBLINE_TEST_PORT" >&2
+  exit 1
+fi
+NUXT_SESSION_PASSWORD="plumbline-test-session-password-0123456789" \
+NUXT_TRUST_PROXY=true HOST=127.0.0.1 PORT="$port" \
+  setsid node .output/server/index.mjs </dev/null >test-results/server.log 2>&1 &
+server_pid=$!
+cleanup() {
+  kill -- -"$server_pid" 2>/dev/null || kill "$server_pid" 2>/dev/null || true
+  [ "${PLUMBLINE_KEEP_DB:-0}" = 1 ] || bash scripts/db.sh stop test >/dev/null 2>&1 || true
+}
+trap cleanup EXIT
+for _ in $(seq 1 100); do
+  curl -fsS "$PLUMBLINE_TEST_URL/api/health" >/dev/null 2>&1 && break
+  sleep 0.2
+done
+curl -fsS "$PLUMBLINE_TEST_URL/api/health" >/dev/null || { echo "the test server did not start:"; tail -30 test-results/server.log; exit 1; }
+
+status=0
+npx vitest run --reporter=default --reporter=json --outputFile.json=test-results/vitest.json "$@" || status=$?
+node scripts/test-summary.mjs test-results/vitest.json || status=1
+exit "$status"

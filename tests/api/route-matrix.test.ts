@@ -1,0 +1,75 @@
+// Every API route × every role: anonymous callers get 401, roles the route
+// does not serve get 403, and the roles it serves get through. The last test
+// fails if a route file exists that this table does not list.
+import { readdirSync, statSync } from 'node:fs'
+import { join, relative } from 'node:path'
+import { beforeAll, describe, expect, it } from 'vitest'
+import { ROLES, type Role } from '../../shared/domain/enums'
+import { Client, signedIn } from '../support/api'
+
+interface Route { method: string, path: string, file: string, roles: readonly Role[] | 'public', body?: unknown, okStatus: number[] }
+
+const ALL = ROLES
+// Bodies for mutating routes are deliberately invalid, so an allowed caller
+// gets a 400 and nothing changes; roles are checked before validation.
+const ROUTES: Route[] = [
+  { method: 'GET', path: '/api/health', file: 'health.get.ts', roles: 'public', okStatus: [200] },
+  { method: 'POST', path: '/api/auth/login', file: 'auth/login.post.ts', roles: 'public', body: {}, okStatus: [400] },
+  { method: 'GET', path: '/api/auth/me', file: 'auth/me.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'POST', path: '/api/auth/logout', file: 'auth/logout.post.ts', roles: ALL, body: {}, okStatus: [200] },
+  { method: 'POST', path: '/api/auth/password', file: 'auth/password.post.ts', roles: ALL, body: {}, okStatus: [400] },
+  { method: 'GET', path: '/api/users', file: 'users/index.get.ts', roles: ['admin'], okStatus: [200] },
+  { method: 'POST', path: '/api/users', file: 'users/index.post.ts', roles: ['admin'], body: {}, okStatus: [400] },
+  { method: 'PATCH', path: '/api/users/1', file: 'users/[id].patch.ts', roles: ['admin'], body: {}, okStatus: [400] },
+  { method: 'GET', path: '/api/codes', file: 'codes/index.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'GET', path: '/api/codes/oscillite', file: 'codes/[slug].get.ts', roles: ALL, okStatus: [200] },
+  { method: 'GET', path: '/api/reference-sets', file: 'reference-sets/index.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'GET', path: '/api/board', file: 'board.get.ts', roles: ALL, okStatus: [200] },
+]
+
+const clients = new Map<Role, Client>()
+
+beforeAll(async () => {
+  for (const role of ROLES) clients.set(role, await signedIn(role))
+})
+
+async function call(client: Client, r: Route) {
+  return client.request(r.method, r.path, r.body)
+}
+
+describe('route × role matrix', () => {
+  const cases = ROUTES.flatMap(r => [
+    { r, who: 'anonymous' as const },
+    ...ROLES.map(role => ({ r, who: role })),
+  ])
+
+  it.each(cases.map(c => [`${c.r.method} ${c.r.path}`, c.who, c] as const))('%s as %s', async (_name, who, { r }) => {
+    // logout ends the session it is called with, so it gets a client of its own
+    const client = who === 'anonymous' ? new Client() : r.path === '/api/auth/logout' ? await signedIn(who) : clients.get(who)!
+    const res = await call(client, r)
+    if (r.roles === 'public') {
+      expect(r.okStatus).toContain(res.status)
+    }
+    else if (who === 'anonymous') {
+      expect(res.status).toBe(401)
+      expect(res.body.data.code).toBe('unauthenticated')
+    }
+    else if (r.roles.includes(who)) {
+      expect(r.okStatus).toContain(res.status)
+    }
+    else {
+      expect(res.status).toBe(403)
+      expect(res.body.message).toMatch(/needs the role/)
+    }
+  })
+
+  it('lists every route file under server/api', () => {
+    const apiDir = join(import.meta.dirname, '../../server/api')
+    const walk = (dir: string): string[] => readdirSync(dir).flatMap((f) => {
+      const p = join(dir, f)
+      return statSync(p).isDirectory() ? walk(p) : [relative(apiDir, p)]
+    })
+    const files = walk(apiDir).sort()
+    expect(files).toEqual(ROUTES.map(r => r.file).sort())
+  })
+})

@@ -1,0 +1,42 @@
+// Debian's Chromium driven by playwright-core: never a browser download.
+import { mkdtempSync, mkdirSync, rmSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { chromium, type BrowserContext, type Page } from 'playwright-core'
+import { BASE } from './api'
+
+export const SCREENSHOTS = join(import.meta.dirname, '../../test-results/screenshots')
+
+export const CHROMIUM_FLAGS = [
+  '--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync',
+]
+
+export interface Session { context: BrowserContext, close: () => Promise<void> }
+
+export async function openBrowser(): Promise<Session> {
+  const profile = mkdtempSync(join(tmpdir(), 'plumbline-chromium-'))
+  mkdirSync(SCREENSHOTS, { recursive: true })
+  const context = await chromium.launchPersistentContext(profile, {
+    executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium',
+    headless: true,
+    args: CHROMIUM_FLAGS,
+    viewport: { width: 1280, height: 900 },
+    baseURL: BASE,
+  })
+  return {
+    context,
+    close: async () => {
+      await context.close()
+      rmSync(profile, { recursive: true, force: true })
+    },
+  }
+}
+
+export async function signInThroughPage(page: Page, email: string, password: string) {
+  await page.goto('/login')
+  await page.getByLabel('E-mail address').fill(email)
+  await page.getByLabel('Password').fill(password)
+  await page.getByRole('button', { name: 'Sign in' }).click()
+  await page.waitForURL(url => !url.pathname.startsWith('/login'))
+}
