@@ -6,7 +6,14 @@ export default defineNuxtConfig({
   devtools: { enabled: false },
   telemetry: false,
   modules: ['@pinia/nuxt', '@nuxtjs/tailwindcss', 'nuxt-auth-utils', '@vueuse/nuxt', '@nuxt/eslint'],
-  css: ['~/assets/css/main.css'],
+  css: [
+    '@fontsource/source-serif-4/400.css',
+    '@fontsource/source-serif-4/400-italic.css',
+    '@fontsource/source-serif-4/600.css',
+    '@fontsource/source-code-pro/400.css',
+    '@fontsource/source-code-pro/600.css',
+    '~/assets/css/main.css',
+  ],
   app: {
     head: {
       htmlAttrs: { lang: 'en' },
@@ -26,6 +33,7 @@ export default defineNuxtConfig({
       maxAge: 60 * 60 * 12,
       cookie: { sameSite: 'lax', httpOnly: true, secure: false },
     },
+    trustProxy: false,
     loginLimit: { perAccount: 5, perAddress: 20, windowMinutes: 15 },
   },
   nitro: {
