@@ -70,6 +70,17 @@ export function roundFixedBall(M: bigint, R: bigint, F: number, d: number): Cert
   return { value: '', digits: 0, exact: false }
 }
 
+const DIRECTED = new Map<number, [typeof Decimal, typeof Decimal]>()
+function directed(P: number): [typeof Decimal, typeof Decimal] {
+  let pair = DIRECTED.get(P)
+  if (!pair) {
+    pair = [Decimal.clone({ precision: P, rounding: Decimal.ROUND_FLOOR, minE: -9e15, maxE: 9e15 }),
+      Decimal.clone({ precision: P, rounding: Decimal.ROUND_CEIL, minE: -9e15, maxE: 9e15 })]
+    DIRECTED.set(P, pair)
+  }
+  return pair
+}
+
 /**
  * Same check for a Decimal midpoint with a relative radius `rel` (a double;
  * it is inflated slightly so that its own rounding never undershoots).
@@ -77,10 +88,12 @@ export function roundFixedBall(M: bigint, R: bigint, F: number, d: number): Cert
 export function roundDecimalBall(mid: Decimal, rel: number, d: number): CertifiedValue {
   if (mid.isZero() && rel === 0) return { value: '0', digits: d, exact: true }
   if (!(rel < 1) || !mid.isFinite()) return { value: '', digits: 0, exact: false }
-  const D = Decimal.clone({ precision: mid.sd() + 12, rounding: Decimal.ROUND_HALF_UP })
-  const m = new D(mid).abs()
-  const r = new D((rel * (1 + 1e-9)).toPrecision(17)).times(m).plus(m.times(`1e-${mid.sd() + 8}`))
-  const lo = m.minus(r)
+  // Directed rounding, so that [lo, hi] only ever widens.
+  const P = Math.max(mid.sd(), (mid.constructor as typeof Decimal).precision) + 12
+  const [Dlo, Dhi] = directed(P)
+  const m = new Dhi(mid).abs()
+  const r = new Dhi((rel * (1 + 1e-9)).toPrecision(17)).times(m)
+  const lo = new Dlo(m).minus(r)
   const hi = m.plus(r)
   const neg = mid.isNeg()
   for (let dd = d; dd >= 1; dd--) {
