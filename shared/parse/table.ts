@@ -1,0 +1,190 @@
+/**
+ * parseTable: bytes as uploaded → columns, rows of fields, and every problem
+ * found, each with its line and column. The caller refuses a file with any
+ * issue; the first MAX_LISTED_ERRORS are listed and all are counted.
+ */
+import { decodeTable } from './decode'
+import { detectFormat } from './detect'
+import { scanDelimited, type CommentLine } from './delimited'
+import { JsonSyntaxError, readJson } from './json-reader'
+import { jsonToTable } from './json-table'
+import { isNumericKind, parseNumber } from './number'
+import {
+  MAX_LISTED_ERRORS, MAX_TABLE_BYTES,
+  type Field, type ParseIssue, type ParseOptions, type ParsedTable, type Row, type TableFormat,
+} from './types'
+
+/** Collects issues in order, keeping the first MAX_LISTED_ERRORS and counting all. */
+class IssueList {
+  readonly listed: ParseIssue[] = []
+  count = 0
+  add(issue: ParseIssue): void {
+    this.count++
+    if (this.listed.length < MAX_LISTED_ERRORS) this.listed.push(issue)
+  }
+  get full(): boolean { return this.listed.length >= MAX_LISTED_ERRORS }
+}
+
+const byPosition = (a: ParseIssue, b: ParseIssue): number => a.line - b.line || a.column - b.column
+
+function megabytes(n: number): string {
+  return `${(n / (1024 * 1024)).toFixed(1)} MB`
+}
+
+export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): ParsedTable {
+  const empty = { columns: [], numeric: [], rows: [], headerFound: false }
+  if (bytes.length > MAX_TABLE_BYTES) {
+    const message = `the file is ${megabytes(bytes.length)}; the limit is ${megabytes(MAX_TABLE_BYTES)}. Split the table or drop columns that are not needed`
+    return { format: 'unknown', delimiter: '', encoding: 'unknown', bom: false, ...empty, errors: [{ kind: 'too-large', line: 0, column: 0, message }], errorCount: 1 }
+  }
+  const decoded = decodeTable(bytes)
+  const base = { encoding: decoded.encoding, bom: decoded.bom }
+  const early: ParseIssue[] = []
+  if (decoded.problem) early.push({ kind: 'encoding', line: 0, column: 0, message: decoded.problem })
+
+  const detected = detectFormat(decoded.text, options)
+  let names: string[] | null = null
+  let records: Row[]
+  let comments: CommentLine[] = []
+  if (detected.format === 'json') {
+    try {
+      const t = jsonToTable(readJson(decoded.text), options.header)
+      names = t.columns
+      records = t.records
+      early.push(...t.issues)
+    } catch (e) {
+      if (!(e instanceof JsonSyntaxError)) throw e
+      early.push(e.issue)
+      records = []
+    }
+  } else {
+    const scan = scanDelimited(decoded.text, detected.delimiter)
+    records = scan.records
+    comments = scan.leadingComments
+    early.push(...scan.issues)
+    if (options.header === true || (options.header === undefined && looksLikeHeader(records[0]))) {
+      names = records[0]!.fields.map((f) => f.raw)
+      records = records.slice(1)
+    }
+  }
+  const format: TableFormat = detected.format
+  const delimiter = detected.format === 'whitespace' ? ' ' : detected.delimiter ?? ''
+  if (names === null && options.header !== false) names = commentedHeader(comments, detected.delimiter, records[0])
+  const headerFound = names !== null
+  const width = names?.length ?? records[0]?.fields.length ?? 0
+  const columns = uniqueNames(names ?? Array.from({ length: width }, (_, i) => `col${i + 1}`))
+
+  const issues = new IssueList()
+  if (records.length === 0 && early.length === 0) {
+    issues.add({ kind: 'no-data', line: 0, column: 0, message: 'the file holds no data rows; check that it is the table the code wrote' })
+  }
+  const numeric = numericColumns(columns, records, options.numericColumns, issues)
+  for (const row of records) {
+    dropTrailingEmpty(row, width, format)
+    if (row.fields.length !== width) issues.add(countIssue(row, columns))
+    if (issues.full) { countRest(row, numeric, columns, issues); continue }
+    const m = Math.min(width, row.fields.length)
+    for (let j = 0; j < m; j++) {
+      const f = row.fields[j]!
+      if (f.kind === 'text' && numeric[j]) issues.add(numberIssue(f, columns[j]!))
+    }
+  }
+  early.sort(byPosition)
+  const merged = [...early.slice(0, MAX_LISTED_ERRORS), ...issues.listed].sort(byPosition).slice(0, MAX_LISTED_ERRORS)
+  return { format, delimiter, ...base, headerFound, columns, numeric, rows: records, errors: merged, errorCount: early.length + issues.count }
+}
+
+/** A header has at least one text field and no finite numbers. */
+function looksLikeHeader(row: Row | undefined): boolean {
+  if (!row) return false
+  let text = false
+  for (const f of row.fields) {
+    if (f.kind === 'number') return false
+    if (f.kind === 'text') text = true
+  }
+  return text
+}
+
+/**
+ * numpy.savetxt(header=…) and many codes write the column names as the last
+ * comment line before the data (common practice). It is taken as the header
+ * when it splits into as many names as the first row has fields.
+ */
+function commentedHeader(comments: CommentLine[], delimiter: string | null, first: Row | undefined): string[] | null {
+  const last = comments[comments.length - 1]
+  if (!last || !first) return null
+  const body = last.text.replace(/^(?:\/\/|[#!%])+/, '').trim()
+  const parts = (delimiter === null ? body.split(/[ \t]+/) : body.split(delimiter)).map((s) => s.trim().replace(/^"(.*)"$/, '$1'))
+  if (parts.length !== first.fields.length || parts.some((p) => p === '' || parseNumber(p).kind !== 'text')) return null
+  return parts
+}
+
+function uniqueNames(names: string[]): string[] {
+  const seen = new Map<string, number>()
+  return names.map((raw, i) => {
+    const name = raw.trim() === '' ? `col${i + 1}` : raw.trim()
+    const k = (seen.get(name) ?? 0) + 1
+    seen.set(name, k)
+    return k === 1 ? name : `${name}_${k}`
+  })
+}
+
+/** Writers that end every line with the delimiter leave one empty field too many. */
+function dropTrailingEmpty(row: Row, width: number, format: TableFormat): void {
+  if (format === 'json' || row.fields.length !== width + 1) return
+  if (row.fields[width]!.kind === 'empty') row.fields.pop()
+}
+
+function numericColumns(columns: string[], rows: Row[], wanted: string[] | undefined, issues: IssueList): boolean[] {
+  if (wanted) {
+    for (const w of wanted) {
+      if (!columns.includes(w)) {
+        issues.add({ kind: 'missing-column', line: 0, column: 0, field: w, message: `the table has no column "${w}"; its columns are ${columns.map((c) => `"${c}"`).join(', ')}` })
+      }
+    }
+    return columns.map((c) => wanted.includes(c))
+  }
+  return columns.map((_, j) => {
+    let num = 0, text = 0
+    for (const r of rows) {
+      const k = r.fields[j]?.kind
+      if (k === undefined || k === 'empty') continue
+      if (isNumericKind(k)) num++
+      else text++
+    }
+    return num > 0 && num >= text
+  })
+}
+
+function countIssue(row: Row, columns: string[]): ParseIssue {
+  const got = row.fields.length, want = columns.length
+  const list = columns.map((c) => `"${c}"`).join(', ')
+  if (got > want) {
+    const extra = row.fields[want]!
+    return {
+      kind: 'field-count', line: row.line, column: extra.column,
+      message: `line ${row.line}, column ${extra.column}: this row has ${got} fields but the table has ${want} (${list}); the extra field starts here`,
+    }
+  }
+  const last = row.fields[got - 1]
+  const column = last ? last.column + last.raw.length : 1
+  const runTogether = row.fields.some((f) => f.problem?.startsWith('it looks like fields that ran together'))
+  return {
+    kind: 'field-count', line: row.line, column, field: columns[got],
+    message: `line ${row.line}, column ${column}: this row has ${got} field${got === 1 ? '' : 's'} but the table has ${want} (${list}); "${columns[got]}" is missing${runTogether ? ' (some fields seem to have run together with no space between them)' : ''}`,
+  }
+}
+
+function numberIssue(f: Field, name: string): ParseIssue {
+  const shown = f.raw.length > 40 ? `${f.raw.slice(0, 40)}…` : f.raw
+  return {
+    kind: 'not-a-number', line: f.line, column: f.column, field: name,
+    message: `line ${f.line}, column ${f.column} (field "${name}"): ${JSON.stringify(shown)} is not a number${f.problem ? `; ${f.problem}` : ''}`,
+  }
+}
+
+/** Past the listing cap only the count matters. */
+function countRest(row: Row, numeric: boolean[], columns: string[], issues: IssueList): void {
+  const m = Math.min(columns.length, row.fields.length)
+  for (let j = 0; j < m; j++) if (row.fields[j]!.kind === 'text' && numeric[j]) issues.count++
+}
