@@ -4,9 +4,10 @@
  * - JSON when the first non-blank character is `[` or `{`.
  * - Otherwise each candidate delimiter (tab, comma, semicolon, pipe) is
  *   counted, outside double quotes, on up to 200 non-blank, non-comment
- *   lines. A candidate fits when at least 80% of those lines share the same
- *   non-zero count (a few bad rows must not hide the format). The best fit
- *   wins; ties go in the order listed. Nothing fits: whitespace columns.
+ *   records. A candidate fits when it occurs in at least 90% of them and at
+ *   least half share the same count (bad rows must not hide the format). The
+ *   largest such share wins; ties go in the order listed. Nothing fits:
+ *   whitespace columns.
  */
 import type { ParseOptions, TableFormat } from './types'
 
@@ -33,7 +34,7 @@ export function detectFormat(text: string, options: ParseOptions): Detected {
   for (const delim of CANDIDATES) {
     if (options.format === 'csv' && delim === '\t') continue
     const share = fitShare(lines, delim)
-    if (share >= 0.8 && (best === null || share > best.share)) best = { delimiter: delim, share }
+    if (share >= 0.5 && presence(lines, delim) >= 0.9 && (best === null || share > best.share)) best = { delimiter: delim, share }
   }
   if (options.format === 'csv') return { format: 'csv', delimiter: best?.delimiter ?? ',' }
   if (best === null) return { format: 'whitespace', delimiter: null }
@@ -71,6 +72,12 @@ function fitShare(lines: string[], delim: string): number {
   let top = 0
   for (const v of tally.values()) top = Math.max(top, v)
   return top / lines.length
+}
+
+function presence(lines: string[], delim: string): number {
+  let k = 0
+  for (const line of lines) if (countOutsideQuotes(line, delim) > 0) k++
+  return lines.length === 0 ? 0 : k / lines.length
 }
 
 function countOutsideQuotes(line: string, delim: string): number {

@@ -63,7 +63,10 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
     comments = scan.leadingComments
     early.push(...scan.issues)
     if (options.header === true || (options.header === undefined && looksLikeHeader(records[0]))) {
-      names = records[0]!.fields.map((f) => f.raw)
+      const head = records[0]!.fields
+      // A line that ends with its delimiter leaves an empty last name.
+      if (head.length > 1 && head[head.length - 1]!.raw === '') head.pop()
+      names = head.map((f) => f.raw)
       records = records.slice(1)
     }
   }
@@ -81,6 +84,7 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
   const numeric = numericColumns(columns, records, options.numericColumns, issues)
   for (const row of records) {
     dropTrailingEmpty(row, width, format)
+    if (format === 'whitespace' && row.fields.length < width) splitStarRuns(row, width)
     if (row.fields.length !== width) issues.add(countIssue(row, columns))
     if (issues.full) { countRest(row, numeric, columns, issues); continue }
     const m = Math.min(width, row.fields.length)
@@ -133,6 +137,29 @@ function uniqueNames(names: string[]): string[] {
 function dropTrailingEmpty(row: Row, width: number, format: TableFormat): void {
   if (format === 'json' || row.fields.length !== width + 1) return
   if (row.fields[width]!.kind === 'empty') row.fields.pop()
+}
+
+/**
+ * Fixed-width Fortran output has no blank between fields, so an overflowed
+ * field glues onto its neighbour: `2.000**************`. A number never
+ * holds `*`, so such a token is split at the asterisk runs when that gives
+ * the row exactly the width it lacks.
+ */
+function splitStarRuns(row: Row, width: number): void {
+  let extra = 0
+  const parts = row.fields.map((f) => {
+    if (!f.raw.includes('*') || /^\*+$/.test(f.raw)) return [f]
+    const pieces = f.raw.match(/\*+|[^*]+/g) ?? [f.raw]
+    extra += pieces.length - 1
+    let at = f.column
+    return pieces.map((raw) => {
+      const r = parseNumber(raw)
+      const g: Field = { raw, line: f.line, column: at, kind: r.kind, value: r.value, sign: r.sign, problem: r.problem }
+      at += raw.length
+      return g
+    })
+  })
+  if (row.fields.length + extra === width) row.fields = parts.flat()
 }
 
 function numericColumns(columns: string[], rows: Row[], wanted: string[] | undefined, issues: IssueList): boolean[] {
