@@ -84,7 +84,7 @@ describe('navigation by role', () => {
     await expect.poll(() => page.getByText('Use at least 10 characters.').count()).toBe(1)
     await page.getByLabel('First password').fill('browser-pass-1')
     await page.getByRole('button', { name: 'Add user' }).click()
-    await page.getByTestId('users-table').getByText(email).waitFor()
+    await page.getByTestId('users-table').getByRole('cell', { name: email, exact: true }).waitFor()
     await page.screenshot({ path: join(SCREENSHOTS, 'admin-1280.png'), fullPage: true })
 
     await browser.context.clearCookies()
