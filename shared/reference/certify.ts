@@ -10,7 +10,7 @@
  * unless it passed this check.
  */
 import Decimal from 'decimal.js'
-import { bitLength } from '../numeric/bits'
+import { bitLength, log2Abs } from '../numeric/bits'
 import { pow10 } from '../numeric/exact'
 
 export type CertificationMethod = 'exact' | 'rigorous-bound' | 'precision-agreement'
@@ -127,33 +127,68 @@ export const bitsFor = (d: number, guard = 24): number => Math.ceil(d / LOG10_2)
 const LOG2_10 = Math.log2(10)
 
 /**
- * Fast path of roundFixedBall for the hot loops: round the midpoint once and
- * check, with a factor-2 margin, that the radius 2^log2R (units 2^−F) cannot
- * reach a rounding boundary. Falls back to roundFixedBall when unsure.
+ * Fast path of roundFixedBall for the hot loops. The midpoint is first cut
+ * to K = bits(d) + 64 significant bits (one more unit of error), then
+ * rounded once as q = round(num/den) with num/den = |M|·10^s·2^−F exactly;
+ * the remainder gives the distance to the nearest rounding boundary, which
+ * must exceed the scaled radius with a factor-2 margin. When unsure, the
+ * careful roundFixedBall decides.
  */
 export function roundFixedFast(M: bigint, log2R: number, F: number, d: number): CertifiedValue {
-  if (M === 0n || log2R === -Infinity || F < 64) return roundFixedBall(M, ceilPow2Local(log2R), F, d)
+  if (M === 0n) return roundFixedBall(M, ceilPow2Local(log2R), F, d)
   const neg = M < 0n
-  const a = neg ? -M : M
-  const nf = Number(a)
-  const l2 = Number.isFinite(nf) ? Math.log2(nf) - F : bitLength(a) - 1 - F
-  let e10 = Math.floor(l2 * LOG10_2)
-  const Fb = BigInt(F)
-  const half = 1n << (Fb - 1n)
+  const F0 = F
+  let exact = log2R === -Infinity
+  let a = neg ? -M : M
+  // log2|M| roughly (only steers the cut and the first exponent guess).
+  let l2 = Math.log2(Number(a))
+  if (!Number.isFinite(l2)) l2 = log2Abs(a)
+  const K = Math.ceil(d * 3.3219280948873626) + 64
+  let lr = log2R
+  if (l2 > K + 8 && !exact) {
+    const sh = Math.floor(l2) - K
+    a >>= BigInt(sh)
+    F -= sh
+    l2 -= sh
+    lr = Math.log2(2 ** (log2R - sh) + 1) // the cut adds < 1 new unit
+    if (!Number.isFinite(lr)) lr = log2R - sh
+    exact = false
+  }
+  let e10 = Math.floor((l2 - F) * LOG10_2)
   for (let tries = 0; tries < 3; tries++) {
     const s = d - 1 - e10
-    if (s < 0) break
-    const t = a * pow10(s) + half
-    const q = t >> Fb
-    if (q >= pow10(d)) { e10++; continue }
-    if (q < pow10(d - 1)) { e10--; continue }
-    const frac = t - (q << Fb)
-    const top = Number(frac >> (Fb - 60n)) / 2 ** 60
-    const thr = 2 ** (log2R + s * LOG2_10 + 1 - F) + 2 ** -58
-    if (top > thr && 1 - top > thr) return { value: formatDigits(neg, q.toString(), e10), digits: d, exact: false }
+    let num = a
+    let lmul = 0 // log2 of the factor taking units of 2^−F to units of num
+    if (s > 0) { num *= pow10(s); lmul += s * LOG2_10 }
+    if (F < 0) { num <<= BigInt(-F); lmul -= F }
+    // q = round(num/den), r = distance above the lower rounding boundary
+    let q: bigint, r: bigint, den: bigint
+    if (s >= 0 && F > 0) {
+      const Fb = BigInt(F)
+      den = 1n << Fb
+      const t = num + (den >> 1n)
+      q = t >> Fb
+      r = t - (q << Fb)
+    } else {
+      den = s < 0 ? pow10(-s) : 1n
+      if (F > 0) den <<= BigInt(F)
+      const t = 2n * num + den
+      const den2 = 2n * den
+      q = t / den2
+      r = (t - q * den2) >> 1n // halving can only shrink the distance
+    }
+    const qs = q.toString()
+    if (qs.length > d) { e10++; continue }
+    if (qs.length < d) { e10--; continue }
+    const dist = r < den - r ? r : den - r
+    // Radius in num units is R·mul; demand a factor-2 margin.
+    const T = exact ? -1 : Math.ceil(lr + lmul + 1)
+    if (T < 0 ? dist > 0n : (dist >> BigInt(T)) > 0n) {
+      return { value: formatDigits(neg, qs, e10), digits: d, exact }
+    }
     break
   }
-  return roundFixedBall(M, ceilPow2Local(log2R), F, d)
+  return roundFixedBall(M, ceilPow2Local(log2R), F0, d)
 }
 
 function ceilPow2Local(l2: number): bigint {

@@ -42,9 +42,16 @@ export function kummerSeries(
   let T = 1n << BigInt(F)
   let S = T
   let W = 0n
-  // Error bounds kept as log2 values (they span thousands of binary orders).
+  // Error bounds: plain doubles (units) while small, log2 form once they
+  // would overflow (large z spans thousands of binary orders).
   let le = -Infinity
   let lsum = -Infinity
+  let eps = 0
+  let epsSum = 0
+  let logMode = false
+  let lsumDirty = false
+  const leNow = () => (logMode ? le : eps > 0 ? Math.log2(eps) : -Infinity)
+  const sumLog = () => (logMode || !lsumDirty ? lsum : epsSum > 0 ? Math.log2(epsSum) : -Infinity)
   let maxT = F
   let log2R = -Infinity
   // N_k = (a_num + k·a_den)·P and (b_num + k·b_den)·Q advance by additions.
@@ -55,26 +62,34 @@ export function kummerSeries(
   let kb = 1n
   let k = 0
   for (; k < MAX_TERMS; k++, Nk += dN, BQ += dBQ, kb++) {
-    if (Nk === 0n) { log2R = lsum; break }
+    if (Nk === 0n) { log2R = sumLog(); break }
     const Dk = BQ * kb
     const prod = T * Nk
     const Tn = prod / Dk
-    const exactStep = lsum === -Infinity && Tn * Dk === prod
-    const lratio = Math.log2(Math.abs(Number(Nk) / Number(Dk))) + 1e-12
-    le = log2Add(le + lratio, exactStep ? -Infinity : 0)
-    lsum = log2Add(lsum, le)
+    const exactStep = lsum === -Infinity && eps === 0 && Tn * Dk === prod
+    const ratio = Math.abs(Number(Nk) / Number(Dk)) * (1 + 1e-12)
+    if (!logMode) {
+      // plain doubles while they cannot overflow; log2 form beyond
+      eps = eps * ratio + (exactStep ? 0 : 1)
+      epsSum += eps
+      if (epsSum > 1e280) { logMode = true; le = Math.log2(eps); lsum = Math.log2(epsSum) }
+      else lsumDirty = true
+    } else {
+      le = log2Add(le + Math.log2(ratio), exactStep ? -Infinity : 0)
+      lsum = log2Add(lsum, le)
+    }
     T = Tn
     S += T
     if (withDerivative) W += kb * T
-    if (T === 0n && le === -Infinity) { log2R = lsum; break }
+    if (T === 0n && leNow() === -Infinity) { log2R = sumLog(); break }
     const K = k + 1
     if (K > absB + 1) {
       const rho = absZ * (absA + K) / ((K - absB) * (K + 1)) * (1 + 1e-12)
       if (rho < 0.5 && T < SMALL && T > -SMALL) {
-        const tl = log2Add(log2Abs(T), le)
+        const tl = log2Add(log2Abs(T), leNow())
         const tail = tl + Math.log2(rho / (1 - rho))
         if (tail < 0) {
-          log2R = log2Add(lsum, tail)
+          log2R = log2Add(sumLog(), tail)
           break
         }
       }

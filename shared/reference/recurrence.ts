@@ -36,8 +36,16 @@ const RESCALE = 2 ** 800
 export function runRecurrence(family: Family, x: ExactDecimal, n: number, F: number): RecurrenceRun {
   const { v: X, exact } = toFixedPoint(x, F)
   const xa = Math.abs(approxNumber(x)) * (1 + 2 ** -40) + 2 ** -Math.min(F, 1000)
+  const { num, den } = toRational(x)
+  // A short decimal x = p/q runs exactly as (c·p·y)/q: cheaper than a full
+  // fixed-point product, and no input error at all.
+  if (num < RATIONAL_LIMIT && num > -RATIONAL_LIMIT && den < RATIONAL_LIMIT) {
+    return runRecurrenceFixed(family, X, 0, xa, n, F, false, { p: num, q: den })
+  }
   return runRecurrenceFixed(family, X, exact ? 0 : 1, xa, n, F)
 }
+
+const RATIONAL_LIMIT = 1n << 64n
 
 /**
  * The recurrence at x̃ = X·2^−F for an x with |x − x̃| ≤ delta units
@@ -45,6 +53,7 @@ export function runRecurrence(family: Family, x: ExactDecimal, n: number, F: num
  */
 export function runRecurrenceFixed(
   family: Family, X: bigint, delta: number, xa: number, n: number, F: number, keepA = false,
+  rational?: { p: bigint; q: bigint },
 ): RecurrenceRun {
   const exact = delta === 0
   const shift = BigInt(family === 'H' ? F - 1 : F)
@@ -56,21 +65,31 @@ export function runRecurrenceFixed(
   log2R[0] = -Infinity
   const log2A: number[] | undefined = keepA ? new Array(n + 1) : undefined
   if (n === 0) return { F, M, log2R, log2A }
-  M[1] = family === 'H' ? 2n * X : X
+  const cP = rational ? (family === 'H' ? 2n : 1n) * rational.p : 0n
+  const Q = rational ? rational.q : 1n
+  M[1] = rational ? (cP * one) / Q : family === 'H' ? 2n * X : X
   // While every product is exact (dyadic x, e.g. 0 or 0.5) no error is added.
-  let exactSoFar = exact
+  let exactSoFar = exact && (!rational || M[1] * Q === cP * one)
   // Scaled bounds: true value = hat · 2^sc.
   let sc = 0
   let Ep = 0, E = 0, Ap = 1, A = c * xa
-  log2R[1] = exact ? -Infinity : Math.log2(c * delta) // y_1' = c
+  if (rational && !exactSoFar) Ep = 0, E = 1 // y_1 itself was truncated
+  log2R[1] = rational ? (exactSoFar ? -Infinity : 0) : exact ? -Infinity : Math.log2(c * delta) // y_1' = c
   if (log2A) { log2A[0] = 0; log2A[1] = Math.log2(c * xa) + 1e-9 }
   let yp = one, y = M[1]!
   for (let k = 1; k < n; k++) {
     const c2 = family === 'H' ? 2 * k : k
     const c2b = BigInt(c2)
-    const prod = X * y
-    const q = prod >> shift
-    if (exactSoFar && (q << shift) !== prod) exactSoFar = false
+    let q: bigint
+    if (rational) {
+      const prod = cP * y
+      q = prod / Q
+      if (exactSoFar && q * Q !== prod) exactSoFar = false
+    } else {
+      const prod = X * y
+      q = prod >> shift
+      if (exactSoFar && (q << shift) !== prod) exactSoFar = false
+    }
     const next = q - c2b * yp
     yp = y
     y = next
