@@ -1,0 +1,135 @@
+/**
+ * Exact comparisons and differences of ExactDecimal values for judging,
+ * safe for any exponent: numbers are aligned only when their magnitudes are
+ * close, so a measured 1e999999 never builds a million-digit BigInt.
+ *
+ * A `Near` is an exact decimal v plus a nudge: the true quantity is v
+ * (nudge 0), or lies strictly above (+1) or below (−1) v by less than
+ * 10^-GAP_LIMIT·|v|. Nudges appear only when two operands differ in
+ * magnitude by more than GAP_LIMIT decades; comparisons still give the
+ * exact answer (see cmpNear).
+ */
+import { pow10, type ExactDecimal } from '../numeric/exact'
+
+export interface Near { v: ExactDecimal; nudge: -1 | 0 | 1 }
+
+const GAP_LIMIT = 2000
+export const ZERO: ExactDecimal = { neg: false, coef: 0n, exp: 0 }
+
+/** Decimal digits of a non-negative BigInt. */
+export function digitLength(c: bigint): number {
+  return c === 0n ? 0 : c.toString().length
+}
+
+/** 10^(order−1) ≤ |x| < 10^order for x ≠ 0; −Infinity for 0. */
+export function order(x: ExactDecimal): number {
+  return x.coef === 0n ? -Infinity : digitLength(x.coef) + x.exp
+}
+
+/** Compare |a| with |b| exactly: −1, 0 or 1. */
+export function cmpAbs(a: ExactDecimal, b: ExactDecimal): -1 | 0 | 1 {
+  if (a.coef === 0n || b.coef === 0n) return a.coef === b.coef ? 0 : a.coef === 0n ? -1 : 1
+  const oa = order(a)
+  const ob = order(b)
+  if (oa !== ob) return oa < ob ? -1 : 1
+  // Same order: the exponent gap is at most the coefficient length difference.
+  const e = Math.min(a.exp, b.exp)
+  const x = a.coef * pow10(a.exp - e)
+  const y = b.coef * pow10(b.exp - e)
+  return x === y ? 0 : x < y ? -1 : 1
+}
+
+/** Compare two Near quantities exactly (the true values they stand for). */
+export function cmpNear(a: Near, b: Near): -1 | 0 | 1 {
+  const c = cmpAbs(a.v, b.v)
+  if (c !== 0) return c
+  return a.nudge === b.nudge ? 0 : a.nudge < b.nudge ? -1 : 1
+}
+
+export const exact = (v: ExactDecimal): Near => ({ v, nudge: 0 })
+
+function signed(x: ExactDecimal): bigint {
+  return x.neg ? -x.coef : x.coef
+}
+
+/**
+ * x + y for signed values (the nudge refers to the magnitude), exact unless the magnitudes are more than GAP_LIMIT decades apart. */
+export function addNear(x: ExactDecimal, y: ExactDecimal): Near {
+  if (x.coef === 0n) return exact(y)
+  if (y.coef === 0n) return exact(x)
+  const ox = order(x)
+  const oy = order(y)
+  if (Math.abs(ox - oy) > GAP_LIMIT) {
+    const [big, small] = ox > oy ? [x, y] : [y, x]
+    // |big + small| is |big| moved towards or away from zero by |small|.
+    return { v: big, nudge: big.neg === small.neg ? 1 : -1 }
+  }
+  const e = Math.min(x.exp, y.exp)
+  const s = signed(x) * pow10(x.exp - e) + signed(y) * pow10(y.exp - e)
+  return exact(s === 0n ? ZERO : { neg: s < 0n, coef: s < 0n ? -s : s, exp: e })
+}
+
+/** |c − r|. */
+export function absDiff(c: ExactDecimal, r: ExactDecimal): Near {
+  const d = addNear(c, { ...r, neg: !r.neg })
+  return { v: { ...d.v, neg: false }, nudge: d.nudge }
+}
+
+/** x · y (exact, never aligns). */
+export function mulExact(x: ExactDecimal, y: ExactDecimal): ExactDecimal {
+  if (x.coef === 0n || y.coef === 0n) return ZERO
+  return { neg: x.neg !== y.neg, coef: x.coef * y.coef, exp: x.exp + y.exp }
+}
+
+const POW5 = new Map<number, bigint>()
+function pow5(k: number): bigint {
+  let v = POW5.get(k)
+  if (v === undefined) { v = 5n ** BigInt(k); if (POW5.size < 40000) POW5.set(k, v) }
+  return v
+}
+
+/** x · 2^q exactly. */
+export function mulPow2(x: ExactDecimal, q: number): ExactDecimal {
+  if (x.coef === 0n) return ZERO
+  if (q >= 0) return { neg: x.neg, coef: x.coef << BigInt(q), exp: x.exp }
+  return { neg: x.neg, coef: x.coef * pow5(-q), exp: x.exp + q }
+}
+
+/** Round the positive ratio num/den · 10^e10 to `sig` significant digits, half to even, e-notation. */
+export function formatRatio(num: bigint, den: bigint, e10: number, sig = 4): string {
+  if (num === 0n) return '0'
+  // Scale so that the integer quotient has at least sig + 2 digits.
+  const shift = Math.max(0, sig + 2 - (digitLength(num) - digitLength(den)))
+  const n = num * pow10(shift)
+  let q = n / den
+  const sticky = q * den !== n
+  const ql = digitLength(q)
+  const drop = ql - sig
+  const unit = pow10(drop)
+  let head = q / unit
+  const rest = q - head * unit
+  const half = unit / 2n
+  if (rest > half || (rest === half && (sticky || (head & 1n) === 1n))) head += 1n
+  q = head
+  let exp10 = e10 - shift + drop + sig - 1
+  let digits = q.toString()
+  if (digits.length > sig) { digits = digits.slice(0, sig); exp10++ }
+  const mant = digits.length > 1 ? `${digits[0]}.${digits.slice(1)}` : digits
+  return `${mant}e${exp10 < 0 ? '' : '+'}${exp10}`
+}
+
+/** |x| to `sig` significant digits. */
+export function formatAbs(x: ExactDecimal, sig = 4): string {
+  return formatRatio(x.coef, 1n, x.exp, sig)
+}
+
+/** log10 |num/den · 10^e10| as a double (for estimates and digits agreed only). */
+export function log10Ratio(num: bigint, den: bigint, e10: number): number {
+  return log10Big(num) - log10Big(den) + e10
+}
+
+function log10Big(v: bigint): number {
+  const s = v.toString()
+  if (s.length <= 300) return Math.log10(Number(v))
+  return Math.log10(Number(s.slice(0, 17))) + s.length - 17
+}
