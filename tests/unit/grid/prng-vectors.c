@@ -44,6 +44,18 @@ static void seed(uint64_t v) {
 	s[2] = (uint32_t)b; s[3] = (uint32_t)(b >> 32);
 }
 
+/* Uniform integer in [0, n) for n <= 2^32 as in prng.ts below(): take the
+ * top bitlen(n - 1) bits of one output, reject values >= n. */
+static uint32_t below(uint32_t n) {
+	if (n == 1) return 0;
+	int bits = 0;
+	for (uint32_t v = n - 1; v; v >>= 1) bits++;
+	for (;;) {
+		uint32_t v = next() >> (32 - bits);
+		if (v < n) return v;
+	}
+}
+
 int main(void) {
 	s[0] = 1; s[1] = 2; s[2] = 3; s[3] = 4;
 	printf("state 1,2,3,4:");
@@ -60,5 +72,15 @@ int main(void) {
 		for (int i = 0; i < 6; i++) printf(" %u", next());
 		printf("\n");
 	}
+	/* The random part of tests/unit/grid/expand.test.ts: seed 7, n in 0..50,
+	 * x in [-1, 1] with 3 places (lattice of 2001 points), 5 draws. */
+	seed(7);
+	printf("seed 7 points:");
+	for (int i = 0; i < 5; i++) {
+		uint32_t n = below(51);
+		int32_t k = (int32_t)below(2001) - 1000;
+		printf(" n=%u,x=%s%d.%03d", n, k < 0 ? "-" : "", (k < 0 ? -k : k) / 1000, (k < 0 ? -k : k) % 1000);
+	}
+	printf("\n");
 	return 0;
 }
