@@ -58,6 +58,10 @@ function sampleLines(text: string): string[] {
     else if ((c === 10 || c === 13) && !quoted) { push(i); start = i + 1 }
   }
   if (out.length < SAMPLE_LINES && start < sample.length) push(sample.length)
+  // An unbalanced quote would hide every later line end; judge by lines then.
+  if (quoted) {
+    return sample.split(/\r\n|\r|\n/).filter((l) => l.trim() !== '' && !/^\s*(?:[#!%]|\/\/)/.test(l)).map((l) => l.replace(/"/g, ''))
+  }
   return out
 }
 

@@ -96,7 +96,7 @@ export function readJson(text: string): JValue {
         skip()
         if (text[pos] === ',') { pos++; continue }
         if (text[pos] === ']') { pos++; return { t: 'arr', items, ...at } }
-        fail('expected "," or "]" here')
+        fail(pos >= n ? 'the file ends before this array is closed; is it cut short?' : 'expected "," or "]" here')
       }
     }
     if (c === '{') {
@@ -116,7 +116,7 @@ export function readJson(text: string): JValue {
         skip()
         if (text[pos] === ',') { pos++; continue }
         if (text[pos] === '}') { pos++; return { t: 'obj', keys, vals, ...at } }
-        fail('expected "," or "}" here')
+        fail(pos >= n ? 'the file ends before this object is closed; is it cut short?' : 'expected "," or "}" here')
       }
     }
     if (c === '"') return { t: 'str', s: str(), ...at }

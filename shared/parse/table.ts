@@ -74,7 +74,7 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
   const delimiter = detected.format === 'whitespace' ? ' ' : detected.delimiter ?? ''
   if (names === null && options.header !== false) names = commentedHeader(comments, detected.delimiter, records[0])
   const headerFound = names !== null
-  const width = names?.length ?? records[0]?.fields.length ?? 0
+  const width = names?.length ?? modalWidth(records)
   const columns = uniqueNames(names ?? Array.from({ length: width }, (_, i) => `col${i + 1}`))
 
   const issues = new IssueList()
@@ -82,6 +82,8 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
     issues.add({ kind: 'no-data', line: 0, column: 0, message: 'the file holds no data rows; check that it is the table the code wrote' })
   }
   const numeric = numericColumns(columns, records, options.numericColumns, issues)
+  // A field the JSON reader already reported is not reported twice.
+  const reported = new Set(early.map((e) => `${e.line}:${e.column}`))
   for (const row of records) {
     dropTrailingEmpty(row, width, format)
     if (format === 'whitespace' && row.fields.length < width) splitStarRuns(row, width)
@@ -90,12 +92,25 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
     const m = Math.min(width, row.fields.length)
     for (let j = 0; j < m; j++) {
       const f = row.fields[j]!
-      if (f.kind === 'text' && numeric[j]) issues.add(numberIssue(f, columns[j]!))
+      if (f.kind === 'text' && numeric[j] && !reported.has(`${f.line}:${f.column}`)) issues.add(numberIssue(f, columns[j]!))
     }
   }
   early.sort(byPosition)
   const merged = [...early.slice(0, MAX_LISTED_ERRORS), ...issues.listed].sort(byPosition).slice(0, MAX_LISTED_ERRORS)
   return { format, delimiter, ...base, headerFound, columns, numeric, rows: records, errors: merged, errorCount: early.length + issues.count }
+}
+
+/**
+ * With no header, the most common field count sets the width (a bad first
+ * row must not decide it), less one when that last field is always empty.
+ */
+function modalWidth(rows: Row[]): number {
+  const tally = new Map<number, number>()
+  for (const r of rows) tally.set(r.fields.length, (tally.get(r.fields.length) ?? 0) + 1)
+  let width = 0, top = 0
+  for (const [w, k] of tally) if (k > top || (k === top && w < width)) { width = w; top = k }
+  if (width > 1 && rows.every((r) => r.fields.length !== width || r.fields[width - 1]!.kind === 'empty')) width--
+  return width
 }
 
 /** A header has at least one text field and no finite numbers. */
@@ -176,12 +191,15 @@ function numericColumns(columns: string[], rows: Row[], wanted: string[] | undef
     for (const r of rows) {
       const k = r.fields[j]?.kind
       if (k === undefined || k === 'empty') continue
-      if (isNumericKind(k)) num++
+      if (isNumericKind(k) || looksNumeric(r.fields[j]!.raw)) num++
       else text++
     }
     return num > 0 && num >= text
   })
 }
+
+/** Text that a person meant as a number (`1.2.3`, `12-3`, `1,5`) votes for a numeric column. */
+const looksNumeric = (raw: string): boolean => /^[+-]?\.?\d/.test(raw)
 
 function countIssue(row: Row, columns: string[]): ParseIssue {
   const got = row.fields.length, want = columns.length

@@ -1,0 +1,111 @@
+/**
+ * Problems are listed with their 1-based line and column, the column name,
+ * and a sentence a person can act on; all are counted, 50 are listed; files
+ * over MAX_TABLE_BYTES are refused with their own kind.
+ */
+import { describe, it, expect } from 'vitest'
+import { MAX_LISTED_ERRORS, MAX_TABLE_BYTES, parseTable } from '../../../shared/parse/index'
+import { table, utf8 } from './support'
+
+describe('errors with line and column', () => {
+  const t = table('n,x,value\n0,0.5,1\n1,0.5,1.2.3\n2,0.5\n3,0.5,1,7\n4,zero,1\n5,0.5,1,5\n')
+
+  it('lists every bad row in file order', () => {
+    expect(t.errors.map((e) => [e.kind, e.line, e.column, e.field])).toEqual([
+      ['not-a-number', 3, 7, 'value'],
+      ['field-count', 4, 6, 'value'],
+      ['field-count', 5, 9, undefined],
+      ['not-a-number', 6, 3, 'x'],
+      ['field-count', 7, 9, undefined],
+    ])
+    expect(t.errorCount).toBe(5)
+  })
+
+  it('says where and what in plain words', () => {
+    expect(t.errors[0]!.message).toBe('line 3, column 7 (field "value"): "1.2.3" is not a number')
+    expect(t.errors[1]!.message).toBe('line 4, column 6: this row has 2 fields but the table has 3 ("n", "x", "value"); "value" is missing')
+    expect(t.errors[2]!.message).toBe('line 5, column 9: this row has 4 fields but the table has 3 ("n", "x", "value"); the extra field starts here')
+  })
+
+  it('adds a hint where it can', () => {
+    const e = table('n x H\n1 0.5 12-3\n2 0.5 1,5\n').errors
+    expect(e[0]!.message).toContain('needs a decimal point')
+    expect(e[1]!.message).toContain('decimal commas are not read')
+  })
+
+  it('hints at fields that ran together when a row is short', () => {
+    const e = table('n x H\n1 0.5 1\n2 0.5 1\n 3 4.0**12.5\n').errors
+    expect(e.map((x) => [x.kind, x.line, x.column])).toEqual([['not-a-number', 4, 4], ['field-count', 4, 13]])
+    expect(e[0]!.message).toContain('ran together')
+    expect(e[1]!.message).toContain('run together')
+  })
+
+  it('counts columns in characters after a BOM, in the line where the field is', () => {
+    const bytes = new Uint8Array([0xef, 0xbb, 0xbf, ...utf8('n\tH\r\n1\toops\r\n2\t3\r\n')])
+    expect(parseTable(bytes).errors[0]).toMatchObject({ line: 2, column: 3, field: 'H' })
+  })
+
+  it('reports an unclosed quote at the quote and stops there', () => {
+    const t = table('case,H\n"a,1\nb,2\n')
+    expect(t.errors[0]).toMatchObject({ kind: 'syntax', line: 2, column: 1 })
+    expect(t.errors[0]!.message).toContain('never closed')
+  })
+
+  it('reports text after a closing quote', () => {
+    expect(table('case,H\n"a"b,1\n"c",2\n').errors[0]).toMatchObject({ kind: 'syntax', line: 2, column: 4 })
+  })
+
+  it('refuses a file with no data rows', () => {
+    expect(table('# nothing here\n\n').errors[0]).toMatchObject({ kind: 'no-data' })
+    expect(table('').errorCount).toBe(1)
+  })
+})
+
+describe('the cap of listed errors', () => {
+  const rows = Array.from({ length: 180 }, (_, i) => (i % 3 === 0 ? `${i},0.5,bad${i}` : i % 3 === 1 ? `${i},0.5` : `${i},0.5,1`))
+  const t = table(`n,x,H\n${rows.join('\n')}\n`)
+
+  it(`lists the first ${MAX_LISTED_ERRORS} and counts them all`, () => {
+    expect(MAX_LISTED_ERRORS).toBe(50)
+    expect(t.errors).toHaveLength(50)
+    expect(t.errorCount).toBe(120)
+    expect(t.errors[0]).toMatchObject({ kind: 'not-a-number', line: 2 })
+    expect(t.errors[1]).toMatchObject({ kind: 'field-count', line: 3 })
+    expect(t.errors[49]!.line).toBe(75) // the 25th pair: rows 72 and 73, lines 74 and 75
+    const lines = t.errors.map((e) => e.line)
+    expect([...lines].sort((a, b) => a - b)).toEqual(lines)
+  })
+
+  it('counts past the cap for JSON problems too', () => {
+    const items = Array.from({ length: 70 }, (_, i) => `{"n":${i},"H":oops}`)
+    const j = table(`[${items.join(',\n')}]`)
+    expect(j.errorCount).toBe(70)
+    expect(j.errors).toHaveLength(50)
+    expect(j.errors[0]).toMatchObject({ kind: 'syntax', line: 1, column: 13, field: 'H' })
+  })
+})
+
+describe('size limit', () => {
+  it('is 50 MiB', () => {
+    expect(MAX_TABLE_BYTES).toBe(50 * 1024 * 1024)
+  })
+
+  it('refuses one byte more, with its own kind, before reading anything', () => {
+    const big = new Uint8Array(MAX_TABLE_BYTES + 1).fill(0x31)
+    const t = parseTable(big)
+    expect(t.errors).toEqual([expect.objectContaining({ kind: 'too-large', line: 0, column: 0 })])
+    expect(t.errors[0]!.message).toContain('the limit is 50.0 MB')
+    expect(t.errorCount).toBe(1)
+    expect(t.rows).toEqual([])
+  })
+
+  it('reads a file of exactly the limit', () => {
+    const line = utf8('1 0.5 1.0\n')
+    const big = new Uint8Array(MAX_TABLE_BYTES)
+    for (let i = 0; i + line.length <= big.length; i += line.length) big.set(line, i)
+    big.fill(0x20, big.length - (big.length % line.length))
+    const t = parseTable(big)
+    expect(t.errors).toEqual([])
+    expect(t.rows.length).toBe(Math.floor(MAX_TABLE_BYTES / line.length))
+  })
+})
