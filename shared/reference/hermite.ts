@@ -60,7 +60,7 @@ export function evalHermiteFamily(
   let best: (ScalarResult & { run: RecurrenceRun }) | null = null
   for (let attempt = 0; attempt <= MAX_RETRIES; attempt++) {
     const run = runRecurrence(family, x, Math.max(n, 1), F)
-    const cv = roundFixedFast(run.M[n]! * scale, run.log2R[n]! + Math.log2(Number(scale)), F, d)
+    const cv = roundFixedFast(run.M[n]! * scale, run.log2R[n]! + log2Abs(scale) + 1e-12, F, d)
     const res = { ...cv, kappa: kappaOf(run, family, x, n), run }
     if (!best || cv.digits > best.digits) best = res
     if (cv.digits >= d) return res
@@ -110,18 +110,18 @@ export function hermiteTable(family: Family, nMax: number, xs: ExactDecimal[], d
     let F = bitsFor(d) + cancellationBits(family, x, nMax)
     let out: CertifiedValue[] = []
     for (let attempt = 0; attempt <= MAX_RETRIES; attempt++) {
-      const run = runRecurrence(family, x, Math.max(nMax, 1), F)
       out = new Array(nMax + 1)
       let worst = Infinity
       let failed = false
-      for (let k = 0; k <= nMax; k++) {
-        const cv = roundFixedFast(run.M[k]!, run.log2R[k]!, F, d)
+      runRecurrence(family, x, Math.max(nMax, 1), F, (k, M, log2R, Fk) => {
+        if (k > nMax) return
+        const cv = roundFixedFast(M, log2R, Fk, d)
         out[k] = cv
         if (cv.digits < d) {
           failed = true
-          worst = Math.min(worst, run.M[k] === 0n ? 0 : relBits(run, k))
+          worst = Math.min(worst, M === 0n ? 0 : log2Abs(M) - log2R)
         }
-      }
+      })
       if (!failed) return out
       if (worst > bitsFor(d, 8) && attempt >= 1) break
       F += Math.max(32, Math.ceil(bitsFor(d) - Math.max(0, worst)) + 16)

@@ -33,16 +33,24 @@ export interface RecurrenceRun {
 
 const RESCALE = 2 ** 800
 
-export function runRecurrence(family: Family, x: ExactDecimal, n: number, F: number): RecurrenceRun {
+/**
+ * With `visit`, each y_k is handed over as it is made and nothing is stored
+ * (M and log2R stay empty): batch tables keep little alive, so the garbage
+ * collector has little to do.
+ */
+export function runRecurrence(
+  family: Family, x: ExactDecimal, n: number, F: number,
+  visit?: (k: number, M: bigint, log2R: number, Fk: number) => void,
+): RecurrenceRun {
   const { v: X, exact } = toFixedPoint(x, F)
   const xa = Math.abs(approxNumber(x)) * (1 + 2 ** -40) + 2 ** -Math.min(F, 1000)
   const { num, den } = toRational(x)
   // A short decimal x = p/q runs exactly as (c·p·y)/q: cheaper than a full
   // fixed-point product, and no input error at all.
   if (num < RATIONAL_LIMIT && num > -RATIONAL_LIMIT && den < RATIONAL_LIMIT) {
-    return runRecurrenceFixed(family, X, 0, xa, n, F, false, { p: num, q: den })
+    return runRecurrenceFixed(family, X, 0, xa, n, F, false, { p: num, q: den }, visit)
   }
-  return runRecurrenceFixed(family, X, exact ? 0 : 1, xa, n, F)
+  return runRecurrenceFixed(family, X, exact ? 0 : 1, xa, n, F, false, undefined, visit)
 }
 
 const RATIONAL_LIMIT = 1n << 64n
@@ -54,6 +62,7 @@ const RATIONAL_LIMIT = 1n << 64n
 export function runRecurrenceFixed(
   family: Family, X: bigint, delta: number, xa: number, n: number, F: number, keepA = false,
   rational?: { p: bigint; q: bigint },
+  visit?: (k: number, M: bigint, log2R: number, Fk: number) => void,
 ): RecurrenceRun {
   const exact = delta === 0
   const shift = BigInt(family === 'H' ? F - 1 : F)
@@ -64,19 +73,21 @@ export function runRecurrenceFixed(
   M[0] = one
   log2R[0] = -Infinity
   const log2A: number[] | undefined = keepA ? new Array(n + 1) : undefined
-  if (n === 0) return { F, M, log2R, log2A }
+  if (n === 0) { visit?.(0, one, -Infinity, F); return { F, M, log2R, log2A } }
   const cP = rational ? (family === 'H' ? 2n : 1n) * rational.p : 0n
   const Q = rational ? rational.q : 1n
-  M[1] = rational ? (cP * one) / Q : family === 'H' ? 2n * X : X
+  const y1 = rational ? (cP * one) / Q : family === 'H' ? 2n * X : X
+  if (!visit) M[1] = y1
   // While every product is exact (dyadic x, e.g. 0 or 0.5) no error is added.
-  let exactSoFar = exact && (!rational || M[1] * Q === cP * one)
-  // Scaled bounds: true value = hat · 2^sc.
-  let sc = 0
+  let exactSoFar = exact && (!rational || y1 * Q === cP * one)
+  // Scaled bounds: E (units) = Ê·2^scE, A (real) = Â·2^scA.
+  let scE = 0, scA = 0
   let Ep = 0, E = 0, Ap = 1, A = c * xa
   if (rational && !exactSoFar) Ep = 0, E = 1 // y_1 itself was truncated
   log2R[1] = rational ? (exactSoFar ? -Infinity : 0) : exact ? -Infinity : Math.log2(c * delta) // y_1' = c
   if (log2A) { log2A[0] = 0; log2A[1] = Math.log2(c * xa) + 1e-9 }
-  let yp = one, y = M[1]!
+  if (visit) { visit(0, one, -Infinity, F); visit(1, y1, log2R[1]!, F) }
+  let yp = one, y = y1
   for (let k = 1; k < n; k++) {
     const c2 = family === 'H' ? 2 * k : k
     const c2b = BigInt(c2)
@@ -93,20 +104,23 @@ export function runRecurrenceFixed(
     const next = q - c2b * yp
     yp = y
     y = next
-    M[k + 1] = next
-    const tiny = exactSoFar ? 0 : (sc > 1000 ? Number.MIN_VALUE : 2 ** -sc)
+    if (!visit) M[k + 1] = next
+    // 2^−scE may underflow once scE > 1074; it is then far below Ê's own
+    // rounding, which the final margin covers.
+    const tiny = exactSoFar ? 0 : 2 ** -scE
     const En = c * xa * E + c2 * Ep + tiny
     const An = c * xa * A + c2 * Ap
     Ep = E; E = En; Ap = A; A = An
-    if (A > RESCALE || E > RESCALE) {
-      A /= RESCALE; Ap /= RESCALE; E /= RESCALE; Ep /= RESCALE; sc += 800
-    }
-    if (log2A) log2A[k + 1] = Math.log2(A) + sc + 1e-9 + (k + 1) * 1e-13
+    if (E > RESCALE) { E /= RESCALE; Ep /= RESCALE; scE += 800 }
+    if (A > RESCALE) { A /= RESCALE; Ap /= RESCALE; scA += 800 }
+    if (log2A) log2A[k + 1] = Math.log2(A) + scA + 1e-9 + (k + 1) * 1e-13
     // Radius of y_{k+1} in units: E_{k+1} + c2(k+1)·A_k (the latter only if x̃ ≠ x).
     const c2n = family === 'H' ? 2 * (k + 1) : k + 1
-    let l = E > 0 ? Math.log2(E) : -Infinity
-    if (!exact) l = log2Add(l, Math.log2(c2n * Ap * delta))
-    log2R[k + 1] = l === -Infinity ? l : l + sc + 1e-9 + (k + 1) * 1e-13
+    let l = E > 0 ? Math.log2(E) + scE : -Infinity
+    if (!exact) l = log2Add(l, Math.log2(c2n * Ap * delta) + scA)
+    const lr = l === -Infinity ? l : l + 1e-9 + (k + 1) * 1e-13
+    if (!visit) { log2R[k + 1] = lr; continue }
+    visit(k + 1, next, lr, F)
   }
   return { F, M, log2R, log2A }
 }
