@@ -34,7 +34,8 @@ const NUMERIC_RE = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/
 
 /**
  * The canonical key of a case's inputs. With a function id, parameters
- * left out take the catalogue default and choice parameters stay text;
+ * left out take the catalogue default, choice parameters stay text and
+ * numeric ones must be decimals (else DomainError);
  * without one, every decimal-looking value is canonicalised and other text
  * is kept (percent-encoded). The server must call it the same way for the
  * set's cases and for the rows it matches (with the function id).
@@ -42,15 +43,18 @@ const NUMERIC_RE = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/
 export function inputKey(params: Record<string, string>, functionId?: string): string {
   const values: Record<string, string> = { ...params }
   const choice = new Set<string>()
+  const numeric = new Set<string>()
   if (functionId !== undefined && isFunctionId(functionId)) {
     for (const spec of CATALOGUE[functionId].parameters) {
       if (values[spec.name] === undefined && spec.default !== undefined) values[spec.name] = spec.default
       if (spec.kind === 'choice') choice.add(spec.name)
+      else numeric.add(spec.name)
     }
   }
   return Object.keys(values).sort().map((name) => {
     const v = values[name]!
-    const text = !choice.has(name) && NUMERIC_RE.test(v) ? canonicalValue(v, name) : encodeURIComponent(v.trim())
+    // The function's numeric parameters must be decimals (throws DomainError otherwise).
+    const text = numeric.has(name) || (!choice.has(name) && NUMERIC_RE.test(v)) ? canonicalValue(v, name) : encodeURIComponent(v.trim())
     return `${name}=${text}`
   }).join(';')
 }
