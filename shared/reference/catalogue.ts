@@ -2,6 +2,7 @@
  * The function catalogue: our ids, the DLMF notation, the convention, the
  * parameters with their domains, and the identities each entry satisfies.
  * Plain data, for the engine's validation and for later UI use.
+ * DLMF equation numbers are cited from memory; check before printing them.
  */
 
 export type FunctionId =

@@ -8,7 +8,7 @@
  * Method: double-precision starts from sign changes of the normalised
  *   recurrence on a fine grid, refined by bisection; then Newton iteration
  *   in BigInt fixed point, x ← x − H_n(x)/(2n H_{n−1}(x)) (DLMF 18.9.25).
- *   Weights w_i = 2^{n−1} n! √π / (n² H_{n−1}(x_i)²) (DLMF 3.5.28 with 18.3).
+ *   Weights w_i = 2^{n−1} n! √π / (n² H_{n−1}(x_i)²) (A&S 25.4.46).
  * Certification (rigorous): H_n is evaluated at x̃ ± η with the bounded
  *   recurrence and must change sign, so a zero lies in (x̃ − η, x̃ + η); the
  *   n intervals are disjoint and H_n has exactly n zeros, so each holds one.

@@ -6,7 +6,7 @@
  * Method: H_n(x) by the certified fixed-point recurrence (which cannot
  *   overflow: BigInt), then the normalisation and e^{−x²/2} in Decimal at
  *   the target plus 15 guard digits. The fixed-point form of the normalised
- *   recurrence would underflow for values like ψ_400(45) ≈ 1e−300 range, so the
+ *   recurrence would underflow for values like ψ_400(45) ≈ 5e−163, so the
  *   scaling is applied once at the end instead.
  * Error budget: the rigorous relative radius of H_n plus 10 ulps for the
  *   handful of correctly rounded Decimal steps (π by Machin, exp, sqrt, ×, ÷).

@@ -2,6 +2,7 @@
  * Gauss–Hermite rules: A&S Table 25.10, the weight sum, exactness for
  * polynomials of degree ≤ 2n − 1, ordering and symmetry, both weights,
  * n = 300 to 40 digits, and a fresh live sample against mpmath.
+ * A&S and DLMF equation numbers are cited from memory.
  */
 import { describe, it, expect, beforeAll } from 'vitest'
 import { gaussHermiteRule, evaluate } from '../../../shared/reference/index'

@@ -1,6 +1,7 @@
 /**
  * H_n, He_n, ψ_n and d^k H_n: published coefficients, special values,
  * identities across random inputs, and a fresh live sample against mpmath.
+ * DLMF and A&S equation numbers are cited from memory.
  */
 import { describe, it, expect, beforeAll } from 'vitest'
 import Decimal from 'decimal.js'
@@ -54,7 +55,7 @@ describe('special values', () => {
       expect(r.certification).toBe('exact')
     }
   })
-  // H_n(0) = (−1)^{n/2} n!/(n/2)! for even n (DLMF 18.5.13 evaluated at x = 0).
+  // H_n(0) = (−1)^{n/2} n!/(n/2)! for even n (the explicit sum, DLMF 18.5.13, at x = 0).
   it.each([['0', '1'], ['2', '-2'], ['4', '12'], ['10', '-30240'], ['20', '670442572800']])('H_%s(0) = %s exactly', (n, v) => {
     const r = val('hermite', { n, x: '0' }, 25)
     expect(r.exact).toBe(true)
@@ -116,7 +117,7 @@ describe('identities across random inputs', () => {
     const tol = new D('1e-43').plus(new D(h.kappa ?? '1e10').times('1e-85'))
     expect(relDiff(he.value, expected).lte(tol)).toBe(true)
   })
-  it.each(points)('differential equation H″ − 2x H′ + 2n H = 0 (DLMF 18.8.1) at n=$n x=$x', ({ n, x }) => {
+  it.each(points)('differential equation H″ − 2x H′ + 2n H = 0 (DLMF Table 18.8.1) at n=$n x=$x', ({ n, x }) => {
     const d = [0, 1, 2].map((k) => new D(val('hermite-derivative', { n: String(n), k: String(k), x }).value))
     const scale = D.max(d[2]!.abs(), d[1]!.times(x).times(2).abs(), d[0]!.times(2 * n).abs())
     const resid = d[2]!.minus(d[1]!.times(x).times(2)).plus(d[0]!.times(2 * n)).abs()

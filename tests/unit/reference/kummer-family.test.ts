@@ -2,6 +2,7 @@
  * Kummer's M, the Hermite-equation series and D_ν: DLMF identities across
  * random inputs, special cases, domain errors, and a fresh live sample
  * against mpmath (hyp1f1, pcfd, and a direct sum of the series recurrence).
+ * DLMF equation numbers are cited from memory.
  */
 import { describe, it, expect, beforeAll } from 'vitest'
 import { evaluate } from '../../../shared/reference/index'
