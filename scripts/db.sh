@@ -85,7 +85,7 @@ start() {
         --skip-test-db >"$base/install.log" 2>&1 || { cat "$base/install.log" >&2; exit 1; }
     fi
     # Detached: new session, no inherited fds, output to /dev/null.
-    setsid mariadbd --defaults-file="$cnf" </dev/null >/dev/null 2>&1 9>&- &
+    setsid mariadbd --defaults-file="$cnf" </dev/null >/dev/null 2>&1 8>&- 9>&- &
     for _ in $(seq 1 300); do
       ping && break
       sleep 0.1

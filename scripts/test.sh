@@ -6,6 +6,10 @@
 set -euo pipefail
 root="$(cd "$(dirname "$0")/.." && pwd)"
 cd "$root"
+# One run at a time per checkout: runs share the test database and port.
+mkdir -p .data
+exec 8>.data/test.lock
+flock 8
 export NO_COLOR=1
 export PATH="/usr/sbin:$PATH"
 
@@ -30,7 +34,7 @@ if curl -fsS -o /dev/null "$PLUMBLINE_TEST_URL/" 2>/dev/null; then
 fi
 NUXT_SESSION_PASSWORD="plumbline-test-session-password-0123456789" \
 NUXT_TRUST_PROXY=true HOST=127.0.0.1 PORT="$port" \
-  setsid node .output/server/index.mjs </dev/null >test-results/server.log 2>&1 &
+  setsid node .output/server/index.mjs </dev/null >test-results/server.log 2>&1 8>&- &
 server_pid=$!
 cleanup() {
   kill -- -"$server_pid" 2>/dev/null || kill "$server_pid" 2>/dev/null || true
