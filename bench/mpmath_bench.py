@@ -65,7 +65,7 @@ def main():
                 mpmath.hermite(n, x)
 
     recurrence()
-    out['a_recurrence'] = best_of(recurrence, 3)
+    out['a_recurrence'] = best_of(recurrence, 5)
     out['a_hermite'] = best_of(per_point, 1)
 
     n = w['b_n']
@@ -92,7 +92,7 @@ def main():
         return nodes, weights
 
     newton()
-    out['b_newton'] = best_of(newton, 3)
+    out['b_newton'] = best_of(newton, 5)
 
     pts = [(mpf(a), mpf(b), mpf(z)) for a, b, z in w['c_points']]
 
@@ -101,7 +101,7 @@ def main():
             mpmath.hyp1f1(a, b, z)
 
     kummer()
-    out['c_hyp1f1'] = best_of(kummer, 3)
+    out['c_hyp1f1'] = best_of(kummer, 5)
     out['backend'] = mpmath.libmp.BACKEND
     out['version'] = mpmath.__version__
     json.dump(out, sys.stdout)

@@ -56,7 +56,7 @@ const runC = () => { for (const [a, b, z] of kc) if (kummer(a, b, z, DIGITS).dig
 
 runA(); runB(); runC() // warm-up, as on the mpmath side
 uncertified = 0
-const ours = { a: bestOf(runA, 3), b: bestOf(runB, 3), c: bestOf(runC, 3) }
+const ours = { a: bestOf(runA, 5), b: bestOf(runB, 5), c: bestOf(runC, 5) }
 
 const py = spawnSync(PYTHON, [resolve(dirname(fileURLToPath(import.meta.url)), 'mpmath_bench.py')], {
   input: JSON.stringify({ digits: DIGITS, a_points: aPoints, a_nmax: 100, b_n: 100, c_points: cPoints }),
@@ -75,7 +75,7 @@ const rows: Array<[string, number, string, number, string, boolean]> = [
   ['(b) Gauss–Hermite n = 100, 50 digits', ours.b, 'mpmath Newton, double starts', n('b_newton'), 'ratio > 1', n('b_newton') / ours.b > 1],
   ['(c) M(a,b,z) × 1000, 50 digits', ours.c, 'mpmath.hyp1f1', n('c_hyp1f1'), 'ratio ≥ 0.5', n('c_hyp1f1') / ours.c >= 0.5],
 ]
-console.log(`mpmath ${mp.version} (backend ${mp.backend}) via ${PYTHON}; node ${process.version}; best of 3 after a warm-up (mpmath.hermite: one pass)`)
+console.log(`mpmath ${mp.version} (backend ${mp.backend}) via ${PYTHON}; node ${process.version}; best of 5 after a warm-up (mpmath.hermite: one pass)`)
 console.log('ratio = mpmath time / engine time (above 1: the engine is faster)\n')
 console.log(`${'workload'.padEnd(38)}${'engine ms'.padStart(11)}  ${'against'.padEnd(30)}${'mpmath ms'.padStart(11)}${'ratio'.padStart(9)}  target`)
 for (const [w, e, what, m, target, ok] of rows) {

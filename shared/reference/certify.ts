@@ -164,11 +164,17 @@ export function roundFixedFast(M: bigint, log2R: number, F: number, d: number): 
     // q = round(num/den), r = distance above the lower rounding boundary
     let q: bigint, r: bigint, den: bigint
     if (s >= 0 && F > 0) {
-      const Fb = BigInt(F)
-      den = 1n << Fb
-      const t = num + (den >> 1n)
-      q = t >> Fb
-      r = t - (q << Fb)
+      // den = 2^F: shifts and masks with cached constants, few allocations
+      const c = shiftConsts(F)
+      const t = num + c.half
+      const qq = t >> c.Fb
+      const rr = t & c.mask
+      const qs0 = qq.toString()
+      if (qs0.length !== d) { if (qs0.length > d) e10++; else e10--; continue }
+      const T = exact ? -1 : Math.ceil(lr + lmul + 1)
+      const dist = rr < c.half ? rr : c.den - rr
+      if (T < 0 ? dist > 0n : dist > pow2(T)) return { value: formatDigits(neg, qs0, e10), digits: d, exact }
+      break
     } else {
       den = s < 0 ? pow10(-s) : 1n
       if (F > 0) den <<= BigInt(F)
@@ -189,6 +195,26 @@ export function roundFixedFast(M: bigint, log2R: number, F: number, d: number): 
     break
   }
   return roundFixedBall(M, ceilPow2Local(log2R), F0, d)
+}
+
+const SHIFT = new Map<number, { Fb: bigint; den: bigint; half: bigint; mask: bigint }>()
+function shiftConsts(F: number): { Fb: bigint; den: bigint; half: bigint; mask: bigint } {
+  let c = SHIFT.get(F)
+  if (!c) {
+    const den = 1n << BigInt(F)
+    c = { Fb: BigInt(F), den, half: den >> 1n, mask: den - 1n }
+    if (SHIFT.size > 4096) SHIFT.clear()
+    SHIFT.set(F, c)
+  }
+  return c
+}
+
+const POW2: bigint[] = []
+function pow2(T: number): bigint {
+  if (T > 100000) return 1n << BigInt(T)
+  let v = POW2[T]
+  if (v === undefined) { v = 1n << BigInt(T); POW2[T] = v }
+  return v
 }
 
 function ceilPow2Local(l2: number): bigint {

@@ -2,7 +2,7 @@
  * Enclosures of y_n(x) (H or He) raised to a requested number of relative
  * bits, for the functions built on top of the polynomials.
  */
-import { type ExactDecimal } from '../numeric/exact'
+import type { ExactDecimal } from '../numeric/exact'
 import { log2Abs } from '../numeric/bits'
 import { runRecurrence, cancellationBits, type Family, type RecurrenceRun } from './recurrence'
 

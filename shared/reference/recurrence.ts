@@ -83,7 +83,7 @@ export function runRecurrenceFixed(
   // Scaled bounds: E (units) = Ê·2^scE, A (real) = Â·2^scA.
   let scE = 0, scA = 0
   let Ep = 0, E = 0, Ap = 1, A = c * xa
-  if (rational && !exactSoFar) Ep = 0, E = 1 // y_1 itself was truncated
+  if (rational && !exactSoFar) E = 1 // y_1 itself was truncated
   log2R[1] = rational ? (exactSoFar ? -Infinity : 0) : exact ? -Infinity : Math.log2(c * delta) // y_1' = c
   if (log2A) { log2A[0] = 0; log2A[1] = Math.log2(c * xa) + 1e-9 }
   if (visit) { visit(0, one, -Infinity, F); visit(1, y1, log2R[1]!, F) }
