@@ -47,7 +47,6 @@ export function readJson(text: string): JValue {
       } else break
     }
   }
-  const where = (): { line: number; column: number } => ({ line, column: pos - lineStart + 1 })
 
   function str(): string {
     const start = pos + 1
@@ -84,18 +83,18 @@ export function readJson(text: string): JValue {
   function inner(): JValue {
     skip()
     if (pos >= n) fail('the file ends where a value was expected')
-    const at = where()
+    const vLine = line, column = pos - lineStart + 1
     const c = text[pos]
     if (c === '[') {
       pos++
       const items: JValue[] = []
       skip()
-      if (text[pos] === ']') { pos++; return { t: 'arr', items, ...at } }
+      if (text[pos] === ']') { pos++; return { t: 'arr', items, line: vLine, column } }
       for (;;) {
         items.push(value())
         skip()
         if (text[pos] === ',') { pos++; continue }
-        if (text[pos] === ']') { pos++; return { t: 'arr', items, ...at } }
+        if (text[pos] === ']') { pos++; return { t: 'arr', items, line: vLine, column } }
         fail(pos >= n ? 'the file ends before this array is closed; is it cut short?' : 'expected "," or "]" here')
       }
     }
@@ -104,7 +103,7 @@ export function readJson(text: string): JValue {
       const keys: string[] = []
       const vals: JValue[] = []
       skip()
-      if (text[pos] === '}') { pos++; return { t: 'obj', keys, vals, ...at } }
+      if (text[pos] === '}') { pos++; return { t: 'obj', keys, vals, line: vLine, column } }
       for (;;) {
         skip()
         if (text[pos] !== '"') fail('expected a quoted key here')
@@ -115,11 +114,11 @@ export function readJson(text: string): JValue {
         vals.push(value())
         skip()
         if (text[pos] === ',') { pos++; continue }
-        if (text[pos] === '}') { pos++; return { t: 'obj', keys, vals, ...at } }
+        if (text[pos] === '}') { pos++; return { t: 'obj', keys, vals, line: vLine, column } }
         fail(pos >= n ? 'the file ends before this object is closed; is it cut short?' : 'expected "," or "}" here')
       }
     }
-    if (c === '"') return { t: 'str', s: str(), ...at }
+    if (c === '"') return { t: 'str', s: str(), line: vLine, column }
     const start = pos
     while (pos < n) {
       const k = text.charCodeAt(pos)
@@ -128,7 +127,7 @@ export function readJson(text: string): JValue {
       pos++
     }
     if (pos === start) fail(`unexpected "${c}"`)
-    return { t: 'tok', s: text.slice(start, pos), ...at }
+    return { t: 'tok', s: text.slice(start, pos), line: vLine, column }
   }
 
   const root = value()

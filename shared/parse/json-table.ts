@@ -11,7 +11,7 @@
  * Every field, whether a JSON number, a bare token or a string, is read by
  * `parseNumber` from its source text.
  */
-import { parseNumber } from './number'
+import { parseNumber, readInto } from './number'
 import type { JValue } from './json-reader'
 import type { Field, ParseIssue, Row } from './types'
 
@@ -24,23 +24,27 @@ export interface JsonTable {
 
 const LAYOUTS = 'a table in JSON must be an array of objects, an array of arrays, or {"columns": [...], "rows": [[...]]}'
 
+function field(raw: string, v: JValue, kind: Field['kind']): Field {
+  return { raw, line: v.line, column: v.column, kind, value: undefined, sign: undefined, problem: undefined }
+}
+
 function fieldOf(v: JValue, issues: ParseIssue[], name: string | undefined): Field {
-  const at = { line: v.line, column: v.column }
+  const where = `line ${v.line}, column ${v.column}${name ? ` (field "${name}")` : ''}`
   if (v.t === 'str') {
-    const r = parseNumber(v.s)
-    return { raw: v.s, ...at, kind: r.kind, value: r.value, sign: r.sign, problem: r.problem }
+    const f = field(v.s, v, 'empty')
+    readInto(f, v.s)
+    return f
   }
   if (v.t === 'tok') {
-    if (v.s === 'null') return { raw: v.s, ...at, kind: 'empty', value: undefined, sign: undefined, problem: undefined }
-    if (v.s === 'true' || v.s === 'false') return { raw: v.s, ...at, kind: 'text', value: undefined, sign: undefined, problem: undefined }
-    const r = parseNumber(v.s)
-    if (r.kind === 'text') {
-      issues.push({ kind: 'syntax', ...at, field: name, message: `line ${v.line}, column ${v.column}${name ? ` (field "${name}")` : ''}: ${v.s} is neither a JSON value nor a number; put text in quotes` })
-    }
-    return { raw: v.s, ...at, kind: r.kind, value: r.value, sign: r.sign, problem: r.problem }
+    if (v.s === 'null') return field(v.s, v, 'empty')
+    if (v.s === 'true' || v.s === 'false') return field(v.s, v, 'text')
+    const f = field(v.s, v, 'empty')
+    readInto(f, v.s)
+    if (f.kind === 'text') issues.push({ kind: 'syntax', line: v.line, column: v.column, field: name, message: `${where}: ${v.s} is neither a JSON value nor a number; put text in quotes` })
+    return f
   }
-  issues.push({ kind: 'syntax', ...at, field: name, message: `line ${v.line}, column ${v.column}${name ? ` (field "${name}")` : ''}: a nested ${v.t === 'arr' ? 'array' : 'object'} cannot be a table field` })
-  return { raw: '', ...at, kind: 'text', value: undefined, sign: undefined, problem: undefined }
+  issues.push({ kind: 'syntax', line: v.line, column: v.column, field: name, message: `${where}: a nested ${v.t === 'arr' ? 'array' : 'object'} cannot be a table field` })
+  return field('', v, 'text')
 }
 
 export function jsonToTable(root: JValue, header: boolean | undefined): JsonTable {

@@ -25,41 +25,52 @@
  * Not accepted (text, with a hint): decimal commas, digit group separators,
  * and fields that ran into each other.
  */
-import { canonicalDecimal } from './canonical'
+import { scanDecimal } from './decimal-scan'
 import { readHexFloat } from './hex-float'
 import type { NumberReading } from './types'
 
-const DEC_RE = /^([+-]?)(\d*)(?:(\.)(\d*))?(?:[eEdDqQ]([+-]?\d+)|([+-]\d+))?$/
 const INF_RE = /^([+-]?)(?:inf|infinity|1\.#inf0*)$/i
 const NAN_RE = /^([+-]?)(?:nan(?:\([0-9a-z_]*\))?|nan[qs]|1\.#(?:qnan|snan|ind)0*)$/i
 const STARS_RE = /^\*+$/
 
 export function parseNumber(raw: string): NumberReading {
-  const s = raw.trim()
-  if (s === '') return { kind: 'empty' }
+  const out: NumberReading = { kind: 'empty', value: undefined, sign: undefined, problem: undefined }
+  readInto(out, raw)
+  if (out.kind === 'empty' || out.kind === 'overflowed') return { kind: out.kind }
+  if (out.kind === 'text') return out.problem === undefined ? { kind: 'text' } : { kind: 'text', problem: out.problem }
+  return out.kind === 'number' ? { kind: 'number', value: out.value, sign: out.sign } : { kind: out.kind, sign: out.sign }
+}
+
+const isBlank = (c: number): boolean => c === 32 || c === 9 || c === 160 || c === 0xfeff
+
+/** Sets kind, value, sign and problem of `out` from `raw` (internal; keeps one object per field). */
+export function readInto(out: NumberReading, raw: string): void {
+  let s = raw
+  if (s.length > 0 && (isBlank(s.charCodeAt(0)) || isBlank(s.charCodeAt(s.length - 1)))) s = s.trim()
+  if (s === '') { out.kind = 'empty'; return }
   const c = s.charCodeAt(0)
-  // Fast path: a decimal starts with a digit, a sign or a point.
-  const m = DEC_RE.exec(s)
-  if (m) {
-    const intDigits = m[2]!
-    const frac = m[4] ?? ''
-    const hasPoint = m[3] === '.'
-    if (intDigits.length + frac.length > 0 && (m[6] === undefined || hasPoint)) {
-      const neg = m[1] === '-'
-      return { kind: 'number', value: canonicalDecimal(neg, intDigits, frac, m[5] ?? m[6] ?? '0'), sign: neg ? -1 : 1 }
-    }
+  const dec = scanDecimal(s)
+  if (dec !== null) {
+    out.kind = 'number'
+    out.value = dec
+    out.sign = c === 45 ? -1 : 1
+    return
   }
-  if (c === 42 && STARS_RE.test(s)) return { kind: 'overflowed' }
+  if (c === 42 && STARS_RE.test(s)) { out.kind = 'overflowed'; return }
   const hex = readHexFloat(s)
   if (hex) {
-    if (!hex.ok) return { kind: 'text', problem: hex.problem }
-    return { kind: 'number', value: hex.value, sign: hex.neg ? -1 : 1 }
+    if (!hex.ok) { out.kind = 'text'; out.problem = hex.problem; return }
+    out.kind = 'number'
+    out.value = hex.value
+    out.sign = hex.neg ? -1 : 1
+    return
   }
   const inf = INF_RE.exec(s)
-  if (inf) return { kind: 'inf', sign: inf[1] === '-' ? -1 : 1 }
+  if (inf) { out.kind = 'inf'; out.sign = inf[1] === '-' ? -1 : 1; return }
   const nan = NAN_RE.exec(s)
-  if (nan) return { kind: 'nan', sign: nan[1] === '-' ? -1 : 1 }
-  return { kind: 'text', problem: hintFor(s) }
+  if (nan) { out.kind = 'nan'; out.sign = nan[1] === '-' ? -1 : 1; return }
+  out.kind = 'text'
+  out.problem = hintFor(s)
 }
 
 /** A hint for text that looks like a number someone meant to write. */
