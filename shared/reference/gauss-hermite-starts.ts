@@ -55,8 +55,9 @@ export function cancellationBitsAt(x: number, n: number): number {
     const An = 2 * Math.abs(x) * A + 2 * k * Ap
     hp = h; h = hn; Ap = A; A = An
     const amp = Math.sqrt(h * h + (k + 1) * hp * hp)
-    if (amp > 0) worst = Math.max(worst, Math.log2(A / amp))
-    if (A > 1e250) { A /= 1e250; Ap /= 1e250; h /= 1e250; hp /= 1e250 }
+    const lost = Math.log2(A / amp)
+    if (amp > 0 && Number.isFinite(lost)) worst = Math.max(worst, lost)
+    if (A > 1e150) { A /= 1e150; Ap /= 1e150; h /= 1e150; hp /= 1e150 } // squares stay finite
   }
   return Math.ceil(worst) + Math.ceil(Math.log2(n + 2)) + 4
 }

@@ -141,8 +141,9 @@ export function cancellationBits(family: Family, x: ExactDecimal, n: number): nu
     const An = c * xa * A + c2 * Ap
     hp = h; h = hn; Ap = A; A = An
     const amp = Math.sqrt(h * h + ((c2 + (family === 'H' ? 2 : 1)) / c) * hp * hp)
-    if (amp > 0) worst = Math.max(worst, Math.log2(A / amp))
-    if (A > 1e250) { A /= 1e250; Ap /= 1e250; h /= 1e250; hp /= 1e250 }
+    const lost = Math.log2(A / amp)
+    if (amp > 0 && Number.isFinite(lost)) worst = Math.max(worst, lost)
+    if (A > 1e150) { A /= 1e150; Ap /= 1e150; h /= 1e150; hp /= 1e150 } // squares stay finite
   }
   return Math.ceil(worst) + Math.ceil(Math.log2(n + 2)) + 4
 }
