@@ -153,6 +153,9 @@ describe('live sample against mpmath (fresh random cases each run)', () => {
   for (let i = 0; i < 40; i++) cases.push({ id: 'hermite', params: { n: String(Math.floor(next() * 400)), x: randomDecimal(next, -40, 40, 6) }, digits: dg() })
   for (let i = 0; i < 25; i++) cases.push({ id: 'hermite-prob', params: { n: String(Math.floor(next() * 250)), x: randomDecimal(next, -40, 40, 5) }, digits: dg() })
   for (let i = 0; i < 25; i++) cases.push({ id: 'hermite-function', params: { n: String(Math.floor(next() * 500)), x: randomDecimal(next, -45, 45, 5) }, digits: dg() })
+  // Very large degree, beyond any fixture: mpmath live.
+  cases.push({ id: 'hermite', params: { n: '5000', x: '10' }, digits: 40 })
+  cases.push({ id: 'hermite-function', params: { n: '3000', x: '-31.5' }, digits: 40 })
   for (let i = 0; i < 12; i++) cases.push({ id: 'hermite-derivative', params: { n: String(Math.floor(next() * 40)), k: String(1 + Math.floor(next() * 4)), x: randomDecimal(next, -6, 6, 4) }, digits: dg() })
   let ref: Array<string | string[]> = []
   beforeAll(() => { ref = mpmath(cases) })
