@@ -5,6 +5,7 @@ Run with /usr/bin/python3. Reads a JSON list of cases on stdin,
   [{"id": "hermite", "params": {"n": "5", "x": "0.3"}, "digits": 40}, ...]
 and prints a JSON list of value strings (a list of two for hermite-series,
 [node, weight] for gauss-hermite), each with digits + 15 significant digits.
+A case with "kappa": true gets |x f'(x)/f(x)| instead (f' by mpmath.diff).
 
 Methods are mpmath's own where it has them (hermite, hyp1f1, pcfd, diff);
 the Hermite-equation series is summed directly from its coefficient
@@ -106,7 +107,42 @@ def gauss_hermite(n, weight, i):
     return [nodes[i - 1], weights[i - 1]]
 
 
+def scalar_function(fid, p):
+    """The case's function of its argument (x, or z), other parameters fixed."""
+    if fid == 'hermite':
+        n = int(p['n'])
+        return lambda t: mpmath.hermite(n, t), 'x'
+    if fid == 'hermite-prob':
+        n = int(p['n'])
+        return lambda t: mpf(2) ** (mpf(-n) / 2) * mpmath.hermite(n, t / mp.sqrt(2)), 'x'
+    if fid == 'hermite-function':
+        n = int(p['n'])
+        c = 1 / mp.sqrt(mpf(2) ** n * mpmath.factorial(n) * mp.sqrt(mp.pi))
+        return lambda t: c * mpmath.hermite(n, t) * mp.exp(-t * t / 2), 'x'
+    if fid == 'hermite-derivative':
+        n, k = int(p['n']), int(p['k'])
+        return lambda t: mp.diff(lambda u: mpmath.hermite(n, u), t, k), 'x'
+    if fid == 'kummer':
+        a, b = mpf(p['a']), mpf(p['b'])
+        return lambda t: mpmath.hyp1f1(a, b, t), 'z'
+    if fid == 'parabolic-cylinder':
+        nu = mpf(p['nu'])
+        return lambda t: mpmath.pcfd(nu, t), 'z'
+    raise ValueError('no scalar function for ' + fid)
+
+
+def kappa(case):
+    """kappa = |x f'(x) / f(x)| with f' from mpmath.diff."""
+    p = case['params']
+    mp.dps = 40
+    f, arg = scalar_function(case['id'], p)
+    x = mpf(p[arg])
+    return mpmath.nstr(abs(x * mp.diff(f, x) / f(x)), 12)
+
+
 def evaluate(case):
+    if case.get('kappa'):
+        return kappa(case)
     p = case['params']
     d = int(case['digits'])
     mp.dps = d + 30

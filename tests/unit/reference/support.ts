@@ -12,7 +12,7 @@ import { expect } from 'vitest'
 const ROOT = resolve(__dirname, '../../..')
 export const PYTHON = '/usr/bin/python3'
 
-export interface MpCase { id: string; params: Record<string, string>; digits: number }
+export interface MpCase { id: string; params: Record<string, string>; digits: number; kappa?: boolean }
 
 /** Values from mpmath for a batch of cases (see scripts/reference/mp_reference.py). */
 export function mpmath(cases: MpCase[]): Array<string | string[]> {
