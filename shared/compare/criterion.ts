@@ -17,7 +17,8 @@
  * All comparisons are exact (BigInt), see exact-ops.ts.
  */
 import { parseExactDecimal, type ExactDecimal } from '../numeric/exact'
-import { BINARY_FORMATS, ulpExponent, type BinaryFormat } from '../numeric/binary-formats'
+import { BINARY_FORMATS, type BinaryFormat } from '../numeric/binary-formats'
+import { ulpExp } from './binary'
 import type { Criterion, Tolerance } from '../schemas/criterion'
 import { addNear, cmpAbs, exact, mulExact, mulPow2, order, type Near } from './exact-ops'
 import { compileRegions, DEFAULT_REGION, selectRegion, type CompiledRegion } from './regions'
@@ -94,12 +95,12 @@ export function zeroRuleApplies(cc: CompiledCriterion, r: ExactDecimal): boolean
 
 /** The bound T on |c − r| for reference r under rule t, and the part that decides. */
 export function threshold(cc: CompiledCriterion, t: CompiledTolerance, r: ExactDecimal, kappa: ExactDecimal | null): { T: Near; part: string } {
-  const absR = { ...r, neg: false }
+  const absR: ExactDecimal = r.neg ? { neg: false, coef: r.coef, exp: r.exp } : r
   switch (t.kind) {
     case 'absolute': return { T: exact(t.atol), part: 'atol' }
     case 'relative': return { T: exact(mulExact(t.rtol, absR)), part: 'rtol' }
     case 'mixed': return { T: addNear(t.atol, mulExact(t.rtol, absR)), part: 'atol+rtol' }
-    case 'ulps': return { T: exact(mulPow2(t.maxUlps, ulpExponent(absR, cc.format))), part: 'ulps' }
+    case 'ulps': return { T: exact(mulPow2(t.maxUlps, ulpExp(absR, cc.format))), part: 'ulps' }
     case 'condition': {
       const useFloor = kappa === null || cmpAbs(kappa, t.kappaFloor) < 0
       const kap = useFloor ? t.kappaFloor : kappa

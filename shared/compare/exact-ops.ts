@@ -16,9 +16,39 @@ export interface Near { v: ExactDecimal; nudge: -1 | 0 | 1 }
 const GAP_LIMIT = 2000
 export const ZERO: ExactDecimal = { neg: false, coef: 0n, exp: 0 }
 
-/** Decimal digits of a non-negative BigInt. */
+/** Decimal digits of a non-negative BigInt (a float estimate, corrected exactly against powers of ten). */
 export function digitLength(c: bigint): number {
-  return c === 0n ? 0 : c.toString().length
+  if (c === 0n) return 0
+  const f = Number(c)
+  let d = f === Infinity ? Math.floor(log10Big(c)) + 1 : f < 10 ? 1 : Math.floor(Math.log10(f)) + 1
+  if (c >= pow10(d)) d++
+  else if (d > 1 && c < pow10(d - 1)) d--
+  return d
+}
+
+const DEC_RE = /^\s*([+-]?)(\d*)(?:\.(\d*))?(?:[eE]([+-]?\d+))?\s*$/
+
+/**
+ * Parse a decimal string exactly, like parseExactDecimal (same normal form:
+ * no trailing zeros in the coefficient, zero as 0·10^0) but trimming zeros
+ * on the string, which is much faster for certified values such as
+ * "2.2591000000000000000e+4". Returns null when the text is not a decimal.
+ */
+export function parseDecimal(text: string): ExactDecimal | null {
+  const m = DEC_RE.exec(text)
+  if (!m) return null
+  const ip = m[2]!
+  const fp = m[3] ?? ''
+  if (ip.length === 0 && fp.length === 0) return null
+  const e = m[4] === undefined ? 0 : Number(m[4])
+  if (!Number.isSafeInteger(e) || Math.abs(e) > 1e6) return null
+  const digits = ip + fp
+  let a = 0
+  while (a < digits.length && digits.charCodeAt(a) === 48) a++
+  if (a === digits.length) return ZERO
+  let b = digits.length
+  while (digits.charCodeAt(b - 1) === 48) b--
+  return { neg: m[1] === '-', coef: BigInt(digits.slice(a, b)), exp: e - fp.length + (digits.length - b) }
 }
 
 /** 10^(order−1) ≤ |x| < 10^order for x ≠ 0; −Infinity for 0. */
@@ -60,9 +90,8 @@ export function addNear(x: ExactDecimal, y: ExactDecimal): Near {
   const ox = order(x)
   const oy = order(y)
   if (Math.abs(ox - oy) > GAP_LIMIT) {
-    const [big, small] = ox > oy ? [x, y] : [y, x]
     // |big + small| is |big| moved towards or away from zero by |small|.
-    return { v: big, nudge: big.neg === small.neg ? 1 : -1 }
+    return { v: ox > oy ? x : y, nudge: x.neg === y.neg ? 1 : -1 }
   }
   const e = Math.min(x.exp, y.exp)
   const s = signed(x) * pow10(x.exp - e) + signed(y) * pow10(y.exp - e)
@@ -71,8 +100,8 @@ export function addNear(x: ExactDecimal, y: ExactDecimal): Near {
 
 /** |c − r|. */
 export function absDiff(c: ExactDecimal, r: ExactDecimal): Near {
-  const d = addNear(c, { ...r, neg: !r.neg })
-  return { v: { ...d.v, neg: false }, nudge: d.nudge }
+  const d = addNear(c, { neg: !r.neg, coef: r.coef, exp: r.exp })
+  return d.v.neg ? { v: { neg: false, coef: d.v.coef, exp: d.v.exp }, nudge: d.nudge } : d
 }
 
 /** x · y (exact, never aligns). */
@@ -95,9 +124,54 @@ export function mulPow2(x: ExactDecimal, q: number): ExactDecimal {
   return { neg: x.neg, coef: x.coef * pow5(-q), exp: x.exp + q }
 }
 
-/** Round the positive ratio num/den · 10^e10 to `sig` significant digits, half to even, e-notation. */
-export function formatRatio(num: bigint, den: bigint, e10: number, sig = 4): string {
+/**
+ * Round the positive value num/den · 10^e10 · 2^pow2 to `sig` significant
+ * digits, half to even, in e-notation. For sig = 4 a double estimate
+ * in log10 space (relative error below 1e-11) is used unless the digits after the 4th lie
+ * within 1e-6 of a rounding boundary; then the exact BigInt division decides.
+ */
+export function formatRatio(num: bigint, den: bigint, e10: number, sig = 4, pow2 = 0): string {
   if (num === 0n) return '0'
+  if (sig === 4) {
+    toDouble2(num)
+    let L = Math.log10(D_F) + e10
+    let k2 = D_K + pow2
+    toDouble2(den)
+    L -= Math.log10(D_F)
+    k2 -= D_K
+    L += k2 * LOG10_2
+    let e = Math.floor(L)
+    let m = 10 ** (L - e)
+    if (m >= 10) { m /= 10; e++ } else if (m < 1) { m *= 10; e-- }
+    const scaled = m * 1000
+    const f = scaled - Math.floor(scaled)
+    if (Math.abs(f - 0.5) > 1e-6 && f > 1e-6 && f < 1 - 1e-6) {
+      let q = Math.round(scaled)
+      if (q >= 10000) { q = 1000; e++ }
+      const t = String(q)
+      return `${t[0]}.${t.slice(1)}e${e < 0 ? '' : '+'}${e}`
+    }
+  }
+  return pow2 >= 0 ? formatRatioExact(num << BigInt(pow2), den, e10, sig) : formatRatioExact(num, den << BigInt(-pow2), e10, sig)
+}
+
+const LOG10_2 = Math.log10(2)
+
+// Scratch results of toDouble2 (no tuple allocation in the judging loop).
+let D_F = 0
+let D_K = 0
+
+/** v ≈ D_F · 2^D_K with D_F a finite double (v > 0). */
+function toDouble2(v: bigint): void {
+  const f = Number(v)
+  if (f !== Infinity) { D_F = f; D_K = 0; return }
+  const shift = v.toString(16).length * 4 - 64
+  D_F = Number(v >> BigInt(shift))
+  D_K = shift
+}
+
+/** formatRatio by exact BigInt division (ties and near-ties). */
+function formatRatioExact(num: bigint, den: bigint, e10: number, sig: number): string {
   // Scale so that the integer quotient has at least sig + 2 digits.
   const shift = Math.max(0, sig + 2 - (digitLength(num) - digitLength(den)))
   const n = num * pow10(shift)
@@ -128,8 +202,8 @@ export function log10Ratio(num: bigint, den: bigint, e10: number): number {
   return log10Big(num) - log10Big(den) + e10
 }
 
-function log10Big(v: bigint): number {
-  const s = v.toString()
-  if (s.length <= 300) return Math.log10(Number(v))
-  return Math.log10(Number(s.slice(0, 17))) + s.length - 17
+/** log10 of a positive BigInt as a double (absolute error ~1e-13). */
+export function log10Big(v: bigint): number {
+  toDouble2(v)
+  return Math.log10(D_F) + D_K * Math.LOG10E * Math.LN2
 }

@@ -29,11 +29,12 @@
  * - a field of asterisks ('overflowed') is non_finite; an empty or
  *   unreadable field fails.
  */
-import { parseExactDecimal, type ExactDecimal } from '../numeric/exact'
-import { roundCertifiedToFormat, roundToFormat, ulpExponent } from '../numeric/binary-formats'
+import { DomainError, type ExactDecimal } from '../numeric/exact'
+import { roundCertifiedToFormat } from '../numeric/binary-formats'
+import { toFormat, ulpExp } from './binary'
 import type { Criterion } from '../schemas/criterion'
 import { compileCriterion, regionRule, threshold, zeroRuleApplies, type CompiledCriterion, type CompiledTolerance } from './criterion'
-import { absDiff, addNear, cmpAbs, cmpNear, formatAbs, formatRatio, log10Ratio, mulExact, mulPow2, order, type Near } from './exact-ops'
+import { absDiff, addNear, cmpAbs, cmpNear, formatAbs, formatRatio, log10Big, log10Ratio, mulExact, mulPow2, order, parseDecimal, type Near } from './exact-ops'
 import { DEFAULT_REGION } from './regions'
 
 export interface ReferenceValue {
@@ -86,39 +87,44 @@ export function judgeCase(reference: ReferenceValue, measured: MeasuredValue, cr
     case 'inf': return judgeInfinity(reference, measured, cc, region)
     case 'number': break
   }
-  const r = parseExactDecimal(reference.value, 'reference')
-  let written: ExactDecimal
-  try { written = parseExactDecimal(measured.value ?? measured.raw, 'measured') } catch { return noErrors('fail', 'unreadable-value', region) }
+  const r = parseDecimal(reference.value)
+  if (r === null) throw new DomainError(`reference: '${reference.value}' is not a decimal number`, 'reference')
   // The text stands for a number of the target format: judge that number.
-  const inFormat = roundToFormat(written, cc.format)
-  if (inFormat.kind === 'infinity') return judgeInfinity(reference, { raw: measured.raw, kind: 'inf', sign: inFormat.neg ? -1 : 1 }, cc, region)
-  const c = mulPow2({ neg: inFormat.neg, coef: inFormat.significand, exp: 0 }, inFormat.exponent)
+  const inFormat = toFormat(measured.value ?? measured.raw, cc.format)
+  if (inFormat === null) return noErrors('fail', 'unreadable-value', region)
+  if (inFormat.inf) return judgeInfinity(reference, { raw: measured.raw, kind: 'inf', sign: inFormat.neg ? -1 : 1 }, cc, region)
+  const c = inFormat.value
   const diff = absDiff(c, r)
-  const kappa = reference.kappa === null ? null : parseExactDecimal(reference.kappa, 'kappa')
+  const kappa = reference.kappa === null || rule.tolerance.kind !== 'condition' ? null : parseDecimal(reference.kappa)
   const errors = errorFigures(diff.v, r, reference.digits, cc)
-  const at = decide(cc, rule.tolerance, c, r, kappa)
+  const at = decide(cc, rule.tolerance, c, r, kappa, diff)
   const exactRef = reference.exact === true || r.coef === 0n
   if (!exactRef && needsEndpoints(cc, rule.tolerance, r, reference.digits, diff, at.T, kappa)) {
-    const delta: ExactDecimal = { neg: false, coef: 5n, exp: order(r) - reference.digits - 1 }
-    const lo = addNear(r, { ...delta, neg: !r.neg }).v
-    const hi = addNear(r, { ...delta, neg: r.neg }).v
-    const sign = (x: ExactDecimal): ExactDecimal => ({ ...x, neg: r.neg })
-    const a = decide(cc, rule.tolerance, c, sign(lo), kappa).pass
-    const b = decide(cc, rule.tolerance, c, sign(hi), kappa).pass
-    if (a !== at.pass || b !== at.pass) return { ...errors, verdict: 'fail', decidedBy: 'unsettled', region }
+    const delta: ExactDecimal = { neg: r.neg, coef: 5n, exp: order(r) - reference.digits - 1 }
+    const lo = addNear(r, { neg: !r.neg, coef: 5n, exp: delta.exp }).v
+    const hi = addNear(r, delta).v
+    const a = decide(cc, rule.tolerance, c, lo, kappa).pass
+    const b = decide(cc, rule.tolerance, c, hi, kappa).pass
+    if (a !== at.pass || b !== at.pass) return withVerdict(errors, 'fail', 'unsettled', region)
   }
   const decidedBy = at.part === 'zero-rule' || region === DEFAULT_REGION ? at.part : `region:${region}/${at.part}`
-  return { ...errors, verdict: at.pass ? 'pass' : 'fail', decidedBy, region }
+  return withVerdict(errors, at.pass ? 'pass' : 'fail', decidedBy, region)
+}
+
+type ErrorFigures = Pick<CaseJudgement, 'absError' | 'relError' | 'ulps' | 'digitsAgreed'>
+
+function withVerdict(e: ErrorFigures, verdict: CaseVerdict, decidedBy: string, region: string): CaseJudgement {
+  return { absError: e.absError, relError: e.relError, ulps: e.ulps, digitsAgreed: e.digitsAgreed, verdict, decidedBy, region }
 }
 
 /** Pass or fail of |c − r| against the zero rule or the region's tolerance, exactly. */
-function decide(cc: CompiledCriterion, t: CompiledTolerance, c: ExactDecimal, r: ExactDecimal, kappa: ExactDecimal | null): { pass: boolean; part: string; T: Near } {
+function decide(cc: CompiledCriterion, t: CompiledTolerance, c: ExactDecimal, r: ExactDecimal, kappa: ExactDecimal | null, diff = absDiff(c, r)): { pass: boolean; part: string; T: Near } {
   if (zeroRuleApplies(cc, r)) {
     const T: Near = { v: cc.zeroAtol, nudge: 0 }
-    return { pass: cmpNear(absDiff(c, r), T) <= 0, part: 'zero-rule', T }
+    return { pass: cmpNear(diff, T) <= 0, part: 'zero-rule', T }
   }
   const { T, part } = threshold(cc, t, r, kappa)
-  return { pass: cmpNear(absDiff(c, r), T) <= 0, part, T }
+  return { pass: cmpNear(diff, T) <= 0, part, T }
 }
 
 /**
@@ -128,12 +134,7 @@ function decide(cc: CompiledCriterion, t: CompiledTolerance, c: ExactDecimal, r:
  */
 function needsEndpoints(cc: CompiledCriterion, t: CompiledTolerance, r: ExactDecimal, digits: number, diff: Near, T: Near, kappa: ExactDecimal | null): boolean {
   const delta: ExactDecimal = { neg: false, coef: 5n, exp: order(r) - digits - 1 }
-  const absR: ExactDecimal = { ...r, neg: false }
-  const lo = addNear(absR, { ...delta, neg: true }).v
-  const hi = addNear(absR, delta).v
-  if (cc.zeroBelow.coef !== 0n && zeroRuleApplies(cc, lo) !== zeroRuleApplies(cc, hi)) return true
   const zero = zeroRuleApplies(cc, r)
-  if (!zero && t.kind === 'ulps' && ulpExponent(lo, cc.format) !== ulpExponent(hi, cc.format)) return true
   let s: ExactDecimal | null = null
   if (!zero) {
     if (t.kind === 'relative' || t.kind === 'mixed') s = t.rtol
@@ -142,16 +143,40 @@ function needsEndpoints(cc: CompiledCriterion, t: CompiledTolerance, r: ExactDec
       s = mulPow2(mulExact(t.k, kap), -cc.p)
     }
   }
-  const reach = s ? addNear(delta, mulExact(delta, s)) : { v: delta, nudge: 0 as const }
-  const gap = absDiff(T.v, diff.v)
-  return cmpNear({ v: gap.v, nudge: 0 }, { v: reach.v, nudge: 1 }) <= 0
+  // Reach of a δ move: |c − r| by ≤ δ, the bound by ≤ s·δ.
+  const reach = s ? addNear(delta, mulExact(delta, s)).v : delta
+  const zb = cc.zeroBelow.coef !== 0n
+  const orderR = order(r)
+  // Far from the zero rule's edge and, for ulps, from a binade edge?
+  const edgeFar = (!zb || Math.abs(orderR - order(cc.zeroBelow)) >= 2)
+    && (zero || t.kind !== 'ulps' || binadeFar(r, digits))
+  if (edgeFar) {
+    // Quick test by orders of magnitude: when T and |c − r| differ by two or
+    // more decades, their gap exceeds 10^(max order − 2).
+    const oT = order(T.v)
+    const oD = order(diff.v)
+    const top = Math.max(oT, oD)
+    if (Math.abs(oT - oD) >= 2 && order(reach) <= top - 2) return false
+    const gap = absDiff(T.v, diff.v)
+    return cmpNear({ v: gap.v, nudge: 0 }, { v: reach, nudge: 1 }) <= 0
+  }
+  return true
+}
+
+/** r ± δ stays inside one binade of powers of two (float test with a wide margin; false when unsure). */
+function binadeFar(r: ExactDecimal, digits: number): boolean {
+  const l2 = (log10Big(r.coef) + r.exp) * Math.LOG2E * Math.LN10
+  const frac = l2 - Math.floor(l2)
+  // Relative distance to the nearer power of two, against 2·δ/|r| ≤ 10^(1−d).
+  const dist = Math.min(frac, 1 - frac) * Math.LN2
+  return dist > 1e-9 && dist > 10 ** (1 - digits) * 4
 }
 
 /** Absolute and relative error, ULPs of the exact r in the format, and digits agreed. */
-function errorFigures(d: ExactDecimal, r: ExactDecimal, digits: number, cc: CompiledCriterion): Pick<CaseJudgement, 'absError' | 'relError' | 'ulps' | 'digitsAgreed'> {
+function errorFigures(d: ExactDecimal, r: ExactDecimal, digits: number, cc: CompiledCriterion): ErrorFigures {
   const absError = formatAbs(d)
-  const q = ulpExponent({ ...r, neg: false }, cc.format)
-  const ulps = q <= 0 ? formatRatio(d.coef << BigInt(-q), 1n, d.exp) : formatRatio(d.coef, 1n << BigInt(q), d.exp)
+  const q = ulpExp(r, cc.format)
+  const ulps = formatRatio(d.coef, 1n, d.exp, 4, -q)
   if (r.coef === 0n) return { absError, relError: null, ulps, digitsAgreed: d.coef === 0n ? digits : 0 }
   if (d.coef === 0n) return { absError, relError: '0', ulps, digitsAgreed: digits }
   const relError = formatRatio(d.coef, r.coef, d.exp - r.exp)
@@ -167,7 +192,8 @@ function judgeInfinity(reference: ReferenceValue, measured: MeasuredValue, cc: C
   if (rounded.kind === 'infinity') {
     if (rounded.neg !== neg) return noErrors('fail', 'overflow-rule', region)
     const out = noErrors(cc.signedInf, 'overflow-rule', region)
-    return { ...out, ulps: '0' }
+    out.ulps = '0'
+    return out
   }
   return noErrors('non_finite', 'overflow-rule', region)
 }

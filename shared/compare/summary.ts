@@ -39,17 +39,25 @@ export interface Figures {
 
 export interface RunSummary extends Figures { regions: Record<string, Figures> }
 
-/** A 4-digit error string as mantissa and decimal exponent (null when absent). */
-function split(s: string | null | undefined): { m: number; e: number } | null {
-  if (s === null || s === undefined || s === '') return null
-  const i = s.search(/[eE]/)
+/** A short e-notation error string as out[0]·10^out[1] (out[1] = 0 within double range); false when absent. */
+function split(s: string | null | undefined, out: Float64Array): boolean {
+  if (s === null || s === undefined || s === '') return false
+  const v = Math.abs(Number(s))
+  if (v === 0 || (v > 1e-290 && v < 1e290)) {
+    out[0] = v
+    out[1] = 0
+    return true
+  }
+  const i = s.indexOf('e')
   const m = Math.abs(Number(i < 0 ? s : s.slice(0, i)))
   const e = i < 0 ? 0 : Number(s.slice(i + 1))
-  if (!Number.isFinite(m) || !Number.isFinite(e)) return null
-  return { m, e }
+  if (!Number.isFinite(m) || !Number.isFinite(e)) return false
+  out[0] = m
+  out[1] = e
+  return true
 }
 
-const keyOf = (x: { m: number; e: number }) => (x.m === 0 ? -Infinity : Math.log10(x.m) + x.e)
+const keyOf = (m: number, e: number) => (m === 0 ? -Infinity : Math.log10(m) + e)
 
 function fmt(m: number, e: number): string {
   if (m === 0) return '0'
@@ -58,60 +66,78 @@ function fmt(m: number, e: number): string {
   return `${mant}e${exp < 0 ? '' : '+'}${exp}`
 }
 
+/** A value known by its log10 key, back as mantissa and exponent (exact for 4-digit strings after rounding to 4 digits). */
+function fromKey(k: number): [number, number] {
+  if (k === -Infinity) return [0, 0]
+  const e = Math.floor(k)
+  return [10 ** (k - e), e]
+}
+
 const JUDGED = new Set<Verdict>(['pass', 'fail', 'accepted'])
 const RANK: Partial<Record<Verdict, number>> = { non_finite: 2, fail: 1, accepted: 1, pass: 0 }
 
 /** The figures for one list of results (indices refer to the run's list). */
 function figures(results: readonly RunCaseResult[], indices: readonly number[]): Figures {
-  const counts = Object.fromEntries(VERDICTS.map(v => [v, 0])) as Record<Verdict, number>
-  const rel: Array<{ m: number; e: number; k: number }> = []
-  let maxU: { m: number; e: number; k: number } | null = null
-  let worst: { i: number; rank: number; rk: number; ak: number } | null = null
+  const counts = { pass: 0, fail: 0, missing: 0, unexpected: 0, non_finite: 0, duplicate: 0, accepted: 0 } as Record<Verdict, number>
+  for (const v of VERDICTS) counts[v] = 0
+  const n = indices.length
+  const relM = new Float64Array(n)
+  const relE = new Float64Array(n)
+  const relK = new Float64Array(n)
+  let nRel = 0
+  let maxUk = -Infinity
+  let maxU: string | null = null
+  let worst = -1
+  let wRank = -1
+  let wRk = -Infinity
+  let wAk = -Infinity
+  const tmp = new Float64Array(2)
   for (const i of indices) {
     const r = results[i]!
     counts[r.verdict]++
-    const re = split(r.relError)
-    if (JUDGED.has(r.verdict) && re) rel.push({ ...re, k: keyOf(re) })
-    const u = split(r.ulps)
-    if (JUDGED.has(r.verdict) && u) {
-      const k = keyOf(u)
-      if (!maxU || k > maxU.k) maxU = { ...u, k }
+    const judged = JUDGED.has(r.verdict)
+    let rk = -Infinity
+    if (split(r.relError, tmp)) {
+      rk = keyOf(tmp[0]!, tmp[1]!)
+      if (judged) { relM[nRel] = tmp[0]!; relE[nRel] = tmp[1]!; relK[nRel] = rk; nRel++ }
+    }
+    if (judged && split(r.ulps, tmp)) {
+      const k = keyOf(tmp[0]!, tmp[1]!)
+      if (maxU === null || k > maxUk) { maxUk = k; maxU = fmt(tmp[0]!, tmp[1]!) }
     }
     const rank = RANK[r.verdict]
-    if (rank !== undefined) {
-      const ae = split(r.absError)
-      const cand = { i, rank, rk: re ? keyOf(re) : -Infinity, ak: ae ? keyOf(ae) : -Infinity }
-      if (!worst || cand.rank > worst.rank || (cand.rank === worst.rank && (cand.rk > worst.rk || (cand.rk === worst.rk && cand.ak > worst.ak)))) worst = cand
-    }
+    if (rank === undefined) continue
+    const ak = split(r.absError, tmp) ? keyOf(tmp[0]!, tmp[1]!) : -Infinity
+    if (rank > wRank || (rank === wRank && (rk > wRk || (rk === wRk && ak > wAk)))) { worst = i; wRank = rank; wRk = rk; wAk = ak }
   }
   let maxRel: string | null = null
   let median: string | null = null
   let rms: string | null = null
-  if (rel.length > 0) {
-    rel.sort((a, b) => a.k - b.k)
-    const top = rel[rel.length - 1]!
-    maxRel = fmt(top.m, top.e)
-    const n = rel.length
-    const a = rel[(n - 1) >> 1]!
-    const b = rel[n >> 1]!
-    const E = Math.max(a.e, b.e)
-    median = fmt((a.m * 10 ** (a.e - E) + b.m * 10 ** (b.e - E)) / 2, E)
-    // RMS = M·sqrt(Σ (x/M)² / n) with M = 10^top.e, so nothing overflows.
+  if (nRel > 0) {
+    let top = 0
+    for (let j = 1; j < nRel; j++) if (relK[j]! > relK[top]!) top = j
+    maxRel = fmt(relM[top]!, relE[top]!)
+    const keys = relK.subarray(0, nRel).sort()
+    const [am, ae] = fromKey(keys[(nRel - 1) >> 1]!)
+    const [bm, be] = fromKey(keys[nRel >> 1]!)
+    const E = Math.max(ae, be)
+    median = fmt(Number(((am * 10 ** (ae - E) + bm * 10 ** (be - E)) / 2).toPrecision(12)), E)
+    // RMS = M·sqrt(Σ (x/M)² / n) with M = 10^(top exponent), so nothing overflows.
+    const T = relE[top]!
+    const TM = relM[top]!
     let s = 0
-    for (const x of rel) { const y = x.m * 10 ** (x.e - top.e); s += y * y }
-    rms = fmt(Math.sqrt(s / n), top.e)
+    if (TM > 0) for (let j = 0; j < nRel; j++) { const y = (relM[j]! / TM) * 10 ** (relE[j]! - T); s += y * y }
+    rms = fmt(TM * Math.sqrt(s / nRel), T)
   }
-  const w = worst ? results[worst.i]! : null
+  const w = worst >= 0 ? results[worst]! : null
   return {
-    total: indices.length,
+    total: n,
     counts,
     maxRelError: maxRel,
     medianRelError: median,
     rmsRelError: rms,
-    maxUlps: maxU ? fmt(maxU.m, maxU.e) : null,
-    worst: w && worst
-      ? { index: worst.i, key: w.key, verdict: w.verdict, relError: w.relError, absError: w.absError ?? null, ulps: w.ulps, region: w.region }
-      : null,
+    maxUlps: maxU,
+    worst: w ? { index: worst, key: w.key, verdict: w.verdict, relError: w.relError, absError: w.absError ?? null, ulps: w.ulps, region: w.region } : null,
   }
 }
 
