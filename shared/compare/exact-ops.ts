@@ -171,7 +171,7 @@ function toDouble2(v: bigint): void {
 }
 
 /** formatRatio by exact BigInt division (ties and near-ties). */
-function formatRatioExact(num: bigint, den: bigint, e10: number, sig: number): string {
+export function formatRatioExact(num: bigint, den: bigint, e10: number, sig: number): string {
   // Scale so that the integer quotient has at least sig + 2 digits.
   const shift = Math.max(0, sig + 2 - (digitLength(num) - digitLength(den)))
   const n = num * pow10(shift)
