@@ -18,6 +18,14 @@ export const MAX_BINARY_EXPONENT = 16_600
 
 const HEX_RE = /^([+-]?)0[xX]([0-9a-fA-F]*)(?:\.([0-9a-fA-F]*))?(?:[pP]([+-]?\d+))?$/
 
+// Powers of five for the common binary64 range, kept as they are reused row after row.
+const POW5: bigint[] = [1n]
+function pow5(k: number): bigint {
+  if (k > 1100) return 5n ** BigInt(k)
+  while (POW5.length <= k) POW5.push(POW5[POW5.length - 1]! * 5n)
+  return POW5[k]!
+}
+
 export type HexReading =
   | { ok: true; neg: boolean; value: string }
   | { ok: false; problem: string }
@@ -48,5 +56,5 @@ export function readHexFloat(s: string): HexReading {
   }
   if (binExp >= 0) return { ok: true, neg, value: canonicalDecimal(neg, (mant << BigInt(binExp)).toString(), '', '0') }
   const k = -binExp
-  return { ok: true, neg, value: canonicalDecimal(neg, (mant * 5n ** BigInt(k)).toString(), '', String(-k)) }
+  return { ok: true, neg, value: canonicalDecimal(neg, (mant * pow5(k)).toString(), '', String(-k)) }
 }
