@@ -7,6 +7,7 @@
  * parameters sorted by name: `n=12;x=0.5`.
  */
 import { parseExactDecimal, type ExactDecimal } from '../numeric/exact'
+import { parseDecimal } from '../compare/exact-ops'
 import { CATALOGUE, isFunctionId } from '../reference/catalogue'
 
 const PLAIN_LIMIT = 24
@@ -27,34 +28,54 @@ export function canonicalDecimal(x: ExactDecimal): string {
 
 /** Canonical text of a decimal string (throws DomainError when it is not a decimal). */
 export function canonicalValue(text: string, param = 'value'): string {
-  return canonicalDecimal(parseExactDecimal(text, param))
+  const x = parseDecimal(text)
+  if (x === null) return canonicalDecimal(parseExactDecimal(text, param)) // throws the engine's message
+  return canonicalDecimal(x)
 }
 
 const NUMERIC_RE = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/
 
+interface KeySpec { names: string[]; numeric: Set<string>; choice: Set<string>; defaults: Array<[string, string]> }
+const SPECS = new Map<string, KeySpec>()
+
+function specFor(functionId: string): KeySpec | null {
+  if (!isFunctionId(functionId)) return null
+  let spec = SPECS.get(functionId)
+  if (!spec) {
+    const ps = CATALOGUE[functionId].parameters
+    spec = {
+      names: ps.map(p => p.name).sort(),
+      numeric: new Set(ps.filter(p => p.kind !== 'choice').map(p => p.name)),
+      choice: new Set(ps.filter(p => p.kind === 'choice').map(p => p.name)),
+      defaults: ps.filter(p => p.default !== undefined).map(p => [p.name, p.default!]),
+    }
+    SPECS.set(functionId, spec)
+  }
+  return spec
+}
+
 /**
  * The canonical key of a case's inputs. With a function id, parameters
  * left out take the catalogue default, choice parameters stay text and
- * numeric ones must be decimals (else DomainError);
- * without one, every decimal-looking value is canonicalised and other text
- * is kept (percent-encoded). The server must call it the same way for the
- * set's cases and for the rows it matches (with the function id).
+ * numeric ones must be decimals (else DomainError); without one, every
+ * decimal-looking value is canonicalised and other text is kept
+ * (percent-encoded). Names are sorted. The server must call it the same way
+ * for the set's cases and for the rows it matches (with the function id).
  */
 export function inputKey(params: Record<string, string>, functionId?: string): string {
-  const values: Record<string, string> = { ...params }
-  const choice = new Set<string>()
-  const numeric = new Set<string>()
-  if (functionId !== undefined && isFunctionId(functionId)) {
-    for (const spec of CATALOGUE[functionId].parameters) {
-      if (values[spec.name] === undefined && spec.default !== undefined) values[spec.name] = spec.default
-      if (spec.kind === 'choice') choice.add(spec.name)
-      else numeric.add(spec.name)
-    }
+  const spec = functionId === undefined ? null : specFor(functionId)
+  let names = Object.keys(params)
+  if (spec) {
+    const missing = spec.defaults.filter(([n]) => params[n] === undefined)
+    if (missing.length > 0) { params = { ...params, ...Object.fromEntries(missing) }; names = Object.keys(params) }
   }
-  return Object.keys(values).sort().map((name) => {
-    const v = values[name]!
-    // The function's numeric parameters must be decimals (throws DomainError otherwise).
-    const text = numeric.has(name) || (!choice.has(name) && NUMERIC_RE.test(v)) ? canonicalValue(v, name) : encodeURIComponent(v.trim())
-    return `${name}=${text}`
-  }).join(';')
+  names.sort()
+  let key = ''
+  for (const name of names) {
+    const v = params[name]!
+    const numeric = spec ? spec.numeric.has(name) || (!spec.choice.has(name) && NUMERIC_RE.test(v)) : NUMERIC_RE.test(v)
+    // The function's numeric parameters must be decimals (canonicalValue throws otherwise).
+    key += `${key ? ';' : ''}${name}=${numeric ? canonicalValue(v, name) : encodeURIComponent(v.trim())}`
+  }
+  return key
 }

@@ -77,7 +77,9 @@ export const referenceSetSchema = z.object({
   output: z.string().trim().min(1).max(40).optional(),
   convention: z.string().trim().min(1, { error: 'State the convention.' }).max(60),
   grid: gridSchema,
-  targetDigits: z.int({ error: 'Target digits must be a whole number.' }).min(MIN_TARGET_DIGITS).max(MAX_TARGET_DIGITS),
+  targetDigits: z.int({ error: 'Target digits must be a whole number.' })
+    .min(MIN_TARGET_DIGITS, { error: `Target digits must be from ${MIN_TARGET_DIGITS} to ${MAX_TARGET_DIGITS}.` })
+    .max(MAX_TARGET_DIGITS, { error: `Target digits must be from ${MIN_TARGET_DIGITS} to ${MAX_TARGET_DIGITS}.` }),
   criterion: criterionSchema,
   source: z.string().trim().max(4000).default(''),
   notes: z.string().trim().max(4000).default(''),
@@ -104,8 +106,13 @@ export const referenceSetSchema = z.object({
       }
     }
   })
-  checkRegions(d.criterion, numeric, all, ctx)
-  for (const message of checkCriterionDigits(d.criterion, d.targetDigits)) ctx.addIssue({ code: 'custom', path: ['targetDigits'], message })
+  // Field-level issues (a malformed number or expression) are already reported; the
+  // cross-checks below then stay quiet rather than throw on the malformed value.
+  const quiet = (f: () => void) => { try { f() } catch { /* reported on its field */ } }
+  quiet(() => checkRegions(d.criterion, numeric, all, ctx))
+  quiet(() => {
+    for (const message of checkCriterionDigits(d.criterion, d.targetDigits)) ctx.addIssue({ code: 'custom', path: ['targetDigits'], message })
+  })
 })
 
 /** Region conditions must name the function's parameters; choice parameters compare by equals/notEquals only. */
@@ -120,7 +127,9 @@ function checkRegions(c: Criterion, numeric: Set<string>, all: Set<string>, ctx:
       if (cond.op !== 'equals' && cond.op !== 'notEquals') ctx.addIssue({ code: 'custom', path: [...path, 'op'], message: `'${cond.param}' is a choice; use equals or notEquals.` })
       return
     }
-    const bad = expressionNames(parseExpression(cond.value)).filter(n => !numeric.has(n))
+    let names: string[]
+    try { names = expressionNames(parseExpression(cond.value)) } catch { return }
+    const bad = names.filter(n => !numeric.has(n))
     if (bad.length) ctx.addIssue({ code: 'custom', path: [...path, 'value'], message: `Unknown name ${bad.map(b => `'${b}'`).join(', ')}; use numbers and ${[...numeric].join(', ')}.` })
   }))
 }
