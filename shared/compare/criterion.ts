@@ -90,7 +90,7 @@ export function regionOf(c: Criterion, inputs: Record<string, string>): string {
 
 /** Whether the zero rule applies to reference r (r = 0, or |r| < below). */
 export function zeroRuleApplies(cc: CompiledCriterion, r: ExactDecimal): boolean {
-  return r.coef === 0n || cmpAbs(r, cc.zeroBelow) < 0
+  return r.coef === 0n || (cc.zeroBelow.coef !== 0n && cmpAbs(r, cc.zeroBelow) < 0)
 }
 
 /** The bound T on |c − r| for reference r under rule t, and the part that decides. */
