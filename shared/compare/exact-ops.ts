@@ -78,6 +78,7 @@ export function cmpNear(a: Near, b: Near): -1 | 0 | 1 {
 
 export const exact = (v: ExactDecimal): Near => ({ v, nudge: 0 })
 
+/** The signed coefficient of x. */
 function signed(x: ExactDecimal): bigint {
   return x.neg ? -x.coef : x.coef
 }
@@ -111,6 +112,7 @@ export function mulExact(x: ExactDecimal, y: ExactDecimal): ExactDecimal {
 }
 
 const POW5 = new Map<number, bigint>()
+/** 5^k, cached for the exponents the formats use. */
 function pow5(k: number): bigint {
   let v = POW5.get(k)
   if (v === undefined) { v = 5n ** BigInt(k); if (POW5.size < 40000) POW5.set(k, v) }

@@ -66,9 +66,11 @@ export interface JudgeOptions {
   region?: string
 }
 
+/** Accept a parsed or an already compiled criterion. */
 const asCompiled = (c: Criterion | CompiledCriterion): CompiledCriterion =>
   'tolerance' in c && 'p' in c ? c : compileCriterion(c as Criterion)
 
+/** A verdict without error figures (non-numeric cells, infinities). */
 function noErrors(verdict: CaseVerdict, decidedBy: string, region: string): CaseJudgement {
   return { absError: null, relError: null, ulps: null, digitsAgreed: null, verdict, decidedBy, region }
 }
@@ -113,6 +115,7 @@ export function judgeCase(reference: ReferenceValue, measured: MeasuredValue, cr
 
 type ErrorFigures = Pick<CaseJudgement, 'absError' | 'relError' | 'ulps' | 'digitsAgreed'>
 
+/** Error figures plus the verdict, as one plain object. */
 function withVerdict(e: ErrorFigures, verdict: CaseVerdict, decidedBy: string, region: string): CaseJudgement {
   return { absError: e.absError, relError: e.relError, ulps: e.ulps, digitsAgreed: e.digitsAgreed, verdict, decidedBy, region }
 }

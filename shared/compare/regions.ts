@@ -47,11 +47,13 @@ type Iv = [number, number]
 const EPS = 2 ** -51
 const TINY = 5e-324
 
+/** Widen [lo, hi] outward by one rounding step; null when not finite (fall back to decimal). */
 function widen(lo: number, hi: number): Iv | null {
   if (!Number.isFinite(lo) || !Number.isFinite(hi)) return null
   return [lo - Math.abs(lo) * EPS - TINY, hi + Math.abs(hi) * EPS + TINY]
 }
 
+/** An interval that surely holds the expression's value; null when the intervals cannot say. */
 function ivEval(e: Expr, vars: Record<string, string>): Iv | null {
   switch (e.t) {
     case 'num': { const v = Number(e.text); return widen(v, v) }
@@ -87,6 +89,7 @@ function ivEval(e: Expr, vars: Record<string, string>): Iv | null {
 const D60 = decimalClone(60)
 type Dec = InstanceType<typeof D60>
 
+/** The expression at 60 digits (each step correctly rounded); throws RegionError on division by zero or sqrt of a negative. */
 function decEval(e: Expr, vars: Record<string, string>, region: string): Dec {
   switch (e.t) {
     case 'num': return new D60(e.text)
@@ -114,6 +117,7 @@ function decEval(e: Expr, vars: Record<string, string>, region: string): Dec {
   }
 }
 
+/** The case's inputs for a message: n=4, x=3. */
 const describe = (vars: Record<string, string>) => Object.entries(vars).map(([k, v]) => `${k}=${v}`).join(', ')
 
 /** −1, 0, 1 for lhs <, =, > rhs; null when the intervals cannot tell. */
@@ -125,6 +129,7 @@ function ivCompare(l: Iv, r: Iv): -1 | 1 | null {
 
 const ABS_OPS = new Set<ConditionOp>(['absLessThan', 'absAtMost', 'absGreaterThan', 'absAtLeast'])
 
+/** The condition's truth from the sign of lhs − rhs. */
 function fromSign(op: ConditionOp, s: -1 | 0 | 1): boolean {
   switch (op) {
     case 'lessThan': case 'absLessThan': return s < 0
@@ -136,6 +141,7 @@ function fromSign(op: ConditionOp, s: -1 | 0 | 1): boolean {
   }
 }
 
+/** Whether one condition holds for the inputs: intervals first, decimal when they overlap. */
 function holds(c: CompiledCondition, inputs: Record<string, string>, region: string): boolean {
   const raw = inputs[c.param]
   if (raw === undefined) throw new RegionError(`Region '${region}': the case has no parameter '${c.param}'.`)

@@ -22,10 +22,10 @@ export interface RunCaseResult {
   ulps: string | null
   /** Unexpected rows have no region; they count only in the run's totals. */
   region?: string
-  key?: string
+  key?: string | null
 }
 
-export interface WorstCase { index: number; key?: string; verdict: Verdict; relError: string | null; absError: string | null; ulps: string | null; region?: string }
+export interface WorstCase { index: number; key?: string | null; verdict: Verdict; relError: string | null; absError: string | null; ulps: string | null; region?: string }
 
 export interface Figures {
   total: number
@@ -57,8 +57,10 @@ function split(s: string | null | undefined, out: Float64Array): boolean {
   return true
 }
 
+/** log10 of m·10^e, the sort key of an error. */
 const keyOf = (m: number, e: number) => (m === 0 ? -Infinity : Math.log10(m) + e)
 
+/** m·10^e to 4 significant digits, e-notation like the judge's strings. */
 function fmt(m: number, e: number): string {
   if (m === 0) return '0'
   const [mant, ex] = m.toExponential(3).split('e') as [string, string]

@@ -1,0 +1,64 @@
+/**
+ * Judging a whole run: match the parsed rows to the set's cases, judge each
+ * matched case, give missing, duplicate and unexpected rows their own
+ * verdicts, and summarise. Order of the results: every case in case order
+ * (judged or missing), then duplicate rows, then unexpected rows, each in
+ * file order. A duplicate keeps its measured text but is never judged (the
+ * first row for a case is; see match.ts).
+ */
+import type { Verdict } from '../domain/enums'
+import type { Criterion } from '../schemas/criterion'
+import { compileCriterion } from './criterion'
+import { judgeCase, type MeasuredValue, type ReferenceValue } from './judge'
+import { matchRows } from './match'
+import { summarizeRun, type RunSummary } from './summary'
+
+export interface RunCase { key: string; inputs: Record<string, string>; reference: ReferenceValue; region?: string }
+export interface RunRow { inputs: Record<string, string>; measured: MeasuredValue }
+
+export interface RunResult {
+  caseIndex: number | null
+  rowIndex: number | null
+  key: string | null
+  region?: string
+  /** The measured value exactly as written; null for a missing case. */
+  measured: string | null
+  verdict: Verdict
+  decidedBy: string
+  absError: string | null
+  relError: string | null
+  ulps: string | null
+  digitsAgreed: number | null
+}
+
+function blank(verdict: Verdict, decidedBy: string, caseIndex: number | null, rowIndex: number | null, key: string | null, measured: string | null, region?: string): RunResult {
+  return { caseIndex, rowIndex, key, region, measured, verdict, decidedBy, absError: null, relError: null, ulps: null, digitsAgreed: null }
+}
+
+/** Judge every case of a run and summarise it; see the file header for the order and the rules. */
+export function judgeRun(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion): { results: RunResult[]; summary: RunSummary } {
+  const cc = compileCriterion(criterion)
+  const m = matchRows(cases, rows, functionId)
+  const results: RunResult[] = []
+  let next = 0
+  for (const i of m.missing) {
+    // Interleave matched and missing cases back into case order.
+    while (next < m.matched.length && m.matched[next]!.caseIndex < i) pushMatched(m.matched[next++]!)
+    const cs = cases[i]!
+    results.push(blank('missing', 'no-row', i, null, cs.key, null, cs.region))
+  }
+  while (next < m.matched.length) pushMatched(m.matched[next++]!)
+  for (const d of m.duplicate) {
+    const cs = cases[d.caseIndex]!
+    results.push(blank('duplicate', `duplicate-of-row:${d.firstRowIndex}`, d.caseIndex, d.rowIndex, cs.key, rows[d.rowIndex]!.measured.raw, cs.region))
+  }
+  for (const u of m.unexpected) results.push(blank('unexpected', u.key === null ? 'unreadable-inputs' : 'no-case', null, u.rowIndex, u.key, rows[u.rowIndex]!.measured.raw))
+  return { results, summary: summarizeRun(results) }
+
+  function pushMatched({ caseIndex, rowIndex }: { caseIndex: number; rowIndex: number }): void {
+    const cs = cases[caseIndex]!
+    const row = rows[rowIndex]!
+    const j = judgeCase(cs.reference, row.measured, cc, cs.inputs, cs.region === undefined ? {} : { region: cs.region })
+    results.push({ caseIndex, rowIndex, key: cs.key, region: j.region, measured: row.measured.raw, verdict: j.verdict, decidedBy: j.decidedBy, absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed })
+  }
+}
