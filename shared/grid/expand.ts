@@ -21,6 +21,7 @@ export interface GridCase {
 
 export interface ExpandOptions { cap?: number; maxIssues?: number }
 
+/** The raw points of one part, in its stable order. */
 function partPoints(i: number, part: GridPart, cap: number): Array<Record<string, string>> {
   switch (part.kind) {
     case 'points': return part.points

@@ -38,6 +38,7 @@ const NUMERIC_RE = /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/
 interface KeySpec { names: string[]; numeric: Set<string>; choice: Set<string>; defaults: Array<[string, string]> }
 const SPECS = new Map<string, KeySpec>()
 
+/** Sorted names, kinds and defaults of a function's parameters (cached). */
 function specFor(functionId: string): KeySpec | null {
   if (!isFunctionId(functionId)) return null
   let spec = SPECS.get(functionId)

@@ -39,6 +39,7 @@ export function rangeCount(part: number, param: string, start: string, stop: str
   return span / st + 1n
 }
 
+/** The exact values of one range axis (start + i·step, or the listed values). */
 function axisValues(part: number, axis: Extract<GridPart, { kind: 'range' }>['axes'][number], cap: number): Axis {
   if ('values' in axis) return { param: axis.param, values: axis.values }
   const n = rangeCount(part, axis.param, axis.start, axis.stop, axis.step)
