@@ -25,4 +25,8 @@ if [ -z "${NUXT_SESSION_PASSWORD:-}" ]; then
 fi
 export HOST="${HOST:-127.0.0.1}" PORT="${PORT:-3000}"
 echo "Plumbline on http://$HOST:$PORT (demo sign-ins are in README.md)"
-exec node .output/server/index.mjs
+# The job worker computes reference sets off the web server's request thread.
+node --import tsx scripts/worker.ts &
+worker_pid=$!
+trap 'kill "$worker_pid" 2>/dev/null || true' EXIT
+node .output/server/index.mjs

@@ -36,8 +36,11 @@ NUXT_SESSION_PASSWORD="plumbline-test-session-password-0123456789" \
 NUXT_TRUST_PROXY=true HOST=127.0.0.1 PORT="$port" \
   setsid node .output/server/index.mjs </dev/null >test-results/server.log 2>&1 8>&- &
 server_pid=$!
+setsid node --import tsx scripts/worker.ts </dev/null >test-results/worker.log 2>&1 8>&- &
+worker_pid=$!
 cleanup() {
   kill -- -"$server_pid" 2>/dev/null || kill "$server_pid" 2>/dev/null || true
+  kill -- -"$worker_pid" 2>/dev/null || kill "$worker_pid" 2>/dev/null || true
   [ "${PLUMBLINE_KEEP_DB:-0}" = 1 ] || bash scripts/db.sh stop test >/dev/null 2>&1 || true
 }
 trap cleanup EXIT

@@ -9,6 +9,7 @@ import {
   char,
   customType,
   datetime,
+  double,
   index,
   int,
   json,
@@ -104,7 +105,12 @@ export const referenceSets = mysqlTable('reference_sets', {
   /** The acceptance criterion, fixed before any run, with its zero/overflow/NaN rules and regions. */
   criterion: json('criterion').$type<unknown>().notNull(),
   source: text('source').notNull(),
+  notes: text('notes').notNull().default(''),
+  /** Which output of the function the set checks (e.g. 'value', 'node', 'y_even'). */
+  output: varchar('output', { length: 40 }).notNull().default('value'),
   state: mysqlEnum('state', referenceSetStates).notNull().default('draft'),
+  /** Why computing the set failed, in words a person can act on. */
+  error: text('error'),
   caseCount: int('case_count').notNull().default(0),
   casesDone: int('cases_done').notNull().default(0),
   frozenAt: timestamp('frozen_at', { fsp: 3 }),
@@ -199,12 +205,19 @@ export const caseResults = mysqlTable('case_results', {
   relError: varchar('rel_error', { length: 64 }),
   ulps: varchar('ulps', { length: 64 }),
   digitsAgreed: varchar('digits_agreed', { length: 16 }),
+  region: varchar('region', { length: 60 }),
+  /** Approximate copies of the error figures, only to sort and filter by; the exact strings above are the record. */
+  relErrorKey: double('rel_error_key'),
+  absErrorKey: double('abs_error_key'),
+  ulpsKey: double('ulps_key'),
   verdict: mysqlEnum('verdict', VERDICTS).notNull(),
   /** Which part of the criterion decided the verdict, e.g. "rtol", "zero-rule". */
   decidedBy: varchar('decided_by', { length: 60 }).notNull(),
   acceptedByDeviationId: ref('accepted_by_deviation_id'),
 }, t => [
   index('case_results_run_verdict_ix').on(t.runId, t.verdict),
+  index('case_results_run_region_ix').on(t.runId, t.region),
+  index('case_results_run_rel_ix').on(t.runId, t.relErrorKey),
   index('case_results_case_ix').on(t.caseId),
 ])
 

@@ -7,9 +7,14 @@ const PUBLIC_API = new Set([
   'DELETE /api/_auth/session',
 ])
 
+// Routes that also take a per-code CI token instead of a session; the route itself checks the token.
+const TOKEN_API = new Set(['POST /api/runs'])
+
 export default defineEventHandler(async (event) => {
   const path = event.path.split('?')[0] ?? ''
   if (!path.startsWith('/api/')) return
-  if (PUBLIC_API.has(`${event.method} ${path}`)) return
+  const route = `${event.method} ${path}`
+  if (PUBLIC_API.has(route)) return
+  if (TOKEN_API.has(route) && bearerToken(event)) return
   await requireUser(event)
 })

@@ -20,15 +20,17 @@ export function parseOr400<S extends z.ZodType>(schema: S, input: unknown, what 
 
 // h3's readValidatedBody wraps any thrown error in its own "Validation Error",
 // which would bury the field list one level deeper; these read, then parse.
-export async function validBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.infer<S>> {
-  let body: unknown
+export async function readJsonBody(event: H3Event): Promise<unknown> {
   try {
-    body = await readBody(event)
+    return (await readBody(event)) ?? {}
   }
   catch {
     throw httpError(400, 'invalid_json', 'The body is not valid JSON.')
   }
-  return parseOr400(schema, body ?? {}, 'body')
+}
+
+export async function validBody<S extends z.ZodType>(event: H3Event, schema: S): Promise<z.infer<S>> {
+  return parseOr400(schema, await readJsonBody(event), 'body')
 }
 
 export function validParams<S extends z.ZodType>(event: H3Event, schema: S): z.infer<S> {

@@ -12,7 +12,7 @@ describe('board and codes', () => {
     const res = await viewer.get('/api/board')
     expect(res.status).toBe(200)
     const modeforge = res.body.codes.find((c: { slug: string }) => c.slug === 'modeforge')
-    expect(modeforge.versions.map((v: { label: string }) => v.label)).toEqual(['0.9.0', '0.9.1', '1.0.0-rc.1'])
+    expect(modeforge.versions.map((v: { label: string }) => v.label).slice(0, 3)).toEqual(['0.9.0', '0.9.1', '1.0.0-rc.1'])
     expect(res.body.codes).toHaveLength(DEMO_CODES.length)
   })
 
@@ -35,7 +35,9 @@ describe('board and codes', () => {
     const res = await viewer.get('/api/codes/oscillite')
     expect(res.status).toBe(200)
     expect(res.body.owners.map((o: { email: string }) => o.email)).toEqual(['owner@corrie-point.test'])
-    expect(res.body.versions.map((v: { label: string }) => v.label)).toEqual(['2.3.0', '2.4.0', '2.4.1'])
+    // other tests add versions to this code; the seeded ones keep their order among them
+    const seeded = ['2.3.0', '2.4.0', '2.4.1']
+    expect(res.body.versions.map((v: { label: string }) => v.label).filter((l: string) => seeded.includes(l))).toEqual(seeded)
     expect((await viewer.get('/api/codes/no-such-code')).status).toBe(404)
     expect((await viewer.get('/api/codes/Bad%20Slug')).status).toBe(400)
   })

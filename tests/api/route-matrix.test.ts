@@ -25,6 +25,19 @@ const ROUTES: Route[] = [
   { method: 'GET', path: '/api/codes/oscillite', file: 'codes/[slug].get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/reference-sets', file: 'reference-sets/index.get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/board', file: 'board.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'POST', path: '/api/reference-sets/preview', file: 'reference-sets/preview.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
+  { method: 'POST', path: '/api/reference-sets', file: 'reference-sets/index.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
+  // id 999999 does not exist: an allowed role gets past the role check to the 404 (GET) or the body check (PUT)
+  { method: 'GET', path: '/api/reference-sets/999999', file: 'reference-sets/[id].get.ts', roles: ALL, okStatus: [404] },
+  { method: 'PUT', path: '/api/reference-sets/999999', file: 'reference-sets/[id].put.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
+  { method: 'GET', path: '/api/reference-sets/999999/cases', file: 'reference-sets/[id]/cases.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/reference-sets/999999/values', file: 'reference-sets/[id]/values.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'POST', path: '/api/submissions/preview', file: 'submissions/preview.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
+  { method: 'POST', path: '/api/runs', file: 'runs/index.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
+  { method: 'GET', path: '/api/runs/999999', file: 'runs/[id].get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/runs/999999/cases', file: 'runs/[id]/cases.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/runs/999999/map', file: 'runs/[id]/map.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/runs/999999/export', file: 'runs/[id]/export.get.ts', roles: ALL, okStatus: [404] },
 ]
 
 const clients = new Map<Role, Client>()

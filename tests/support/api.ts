@@ -9,6 +9,7 @@ export interface Reply<T = unknown> { status: number, body: T, headers: Headers 
 
 export class Client {
   cookie = ''
+  base = BASE
   constructor(public address = '127.0.0.1') {}
 
   async request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<Reply<T>> {

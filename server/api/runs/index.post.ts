@@ -1,0 +1,31 @@
+import { suggestColumnMapping } from '../../../shared/parse'
+
+// Submit one output table for one version against one reference set: from a
+// signed-in qa/admin, or from CI with a per-code token of scope `submit`.
+export default defineEventHandler(async (event) => {
+  const viaToken = bearerToken(event) !== null
+  const user = viaToken ? null : await requireRole(event, 'qa', 'admin')
+  const upload = await readUpload(event)
+  const fields = submissionFields(upload)
+  const code = await findCode(fields.code)
+  const token = viaToken ? await requireCodeToken(event, code.id, 'submit') : null
+  const set = await loadSet(fields.setId)
+  if (set.state !== 'ready') throw httpError(409, 'not_ready', `Reference set ${set.slug} r${set.revision} is ${set.state}; submit once it is ready.`)
+
+  const sha = sha256Hex(upload.data)
+  const version = await findVersion(code.id, fields.version)
+  if (version) {
+    const dup = await findDuplicateRun(version.id, set.id, sha)
+    if (dup) return { run: { id: dup.id, counts: dup.counts }, duplicate: true }
+  }
+  const table = parseUploadedTable(upload.data)
+  const { index, mapping } = resolveMapping(set, table, fields.mapping, (c, p) => suggestColumnMapping(c, p).mapping)
+  const judged = judgeTable(set, await loadCases(set.id), table, index)
+  const actor = user ?? { id: null, email: `token:${token!.prefix}` }
+  const runId = await storeRun({
+    set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment,
+    fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: token?.id ?? null,
+  })
+  setResponseStatus(event, 201)
+  return { run: { id: runId, counts: judged.summary.counts }, duplicate: false }
+})

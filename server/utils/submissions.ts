@@ -1,0 +1,162 @@
+// A submitted output table, from upload to stored run: read the request
+// (multipart or JSON), parse the table exactly, match its rows to the set's
+// cases, judge every case, and store the run, its raw file and every case
+// result in one transaction. A table with unreadable rows is refused whole.
+import { createHash } from 'node:crypto'
+import type { H3Event } from 'h3'
+import { and, asc, eq } from 'drizzle-orm'
+import { MAX_TABLE_BYTES, parseTable, type ParsedTable } from '../../shared/parse'
+import { compileCriterion, judgeCase, matchRows, summarizeRun, type RunCaseResult } from '../../shared/compare'
+import { CATALOGUE, isFunctionId } from '../../shared/reference'
+import { submissionSchema, type SubmissionFields } from '../../shared/schemas/submission'
+import type { Criterion } from '../../shared/schemas/criterion'
+import type { Verdict } from '../../shared/domain/enums'
+import type { ReferenceSet } from '../database/schema'
+
+export interface Upload { fileName: string, data: Buffer, fields: Record<string, unknown> }
+
+const tooLarge = () => httpError(413, 'too_large', `The table is larger than ${MAX_TABLE_BYTES / 1024 / 1024} MB. Split it into several runs or drop columns that are not needed.`)
+
+/** Read a multipart upload (`file` plus fields) or a JSON body with the table in `content`. */
+export async function readUpload(event: H3Event): Promise<Upload> {
+  const length = Number(getRequestHeader(event, 'content-length') ?? 0)
+  if (length > MAX_TABLE_BYTES + 1024 * 1024) throw tooLarge()
+  const type = getRequestHeader(event, 'content-type') ?? ''
+  if (type.startsWith('multipart/form-data')) {
+    const parts = (await readMultipartFormData(event)) ?? []
+    const fields: Record<string, unknown> = {}
+    let file: Upload | null = null
+    for (const p of parts) {
+      if (p.name === 'file') file = { fileName: p.filename || 'table', data: p.data, fields }
+      else if (p.name) fields[p.name] = p.data.toString('utf8')
+    }
+    if (!file) throw httpError(400, 'invalid_input', 'Invalid upload: file: attach the output table as the field "file".', { issues: [{ field: 'file', message: 'Attach the output table.' }] })
+    if (file.data.length > MAX_TABLE_BYTES) throw tooLarge()
+    const json = (k: string) => {
+      const v = fields[k]
+      if (typeof v !== 'string' || !v) return undefined
+      try {
+        return JSON.parse(v) as unknown
+      }
+      catch {
+        throw httpError(400, 'invalid_input', `Invalid upload: ${k}: not valid JSON.`, { issues: [{ field: k, message: 'Not valid JSON.' }] })
+      }
+    }
+    return { ...file, fields: { ...fields, mapping: json('mapping'), environment: json('environment') } }
+  }
+  const body = await readJsonBody(event) as Record<string, unknown>
+  if (typeof body.content !== 'string') {
+    throw httpError(400, 'invalid_input', 'Invalid body: content: send the table as multipart field "file", or as the string "content" in JSON.', { issues: [{ field: 'content', message: 'Missing the table.' }] })
+  }
+  const data = Buffer.from(body.content, 'utf8')
+  if (data.length > MAX_TABLE_BYTES) throw tooLarge()
+  const { content: _content, fileName, ...fields } = body
+  return { fileName: typeof fileName === 'string' ? fileName : 'table', data, fields }
+}
+
+export function submissionFields(upload: Upload): SubmissionFields {
+  return parseOr400(submissionSchema, upload.fields, 'upload')
+}
+
+/** Parse exactly; refuse the whole file if any row cannot be read (413 when too large). */
+export function parseUploadedTable(data: Uint8Array): ParsedTable {
+  const table = parseTable(data)
+  if (table.errors.some(e => e.kind === 'too-large')) throw tooLarge()
+  if (table.errorCount > 0) {
+    const errors = table.errors.map(e => ({ line: e.line, column: e.column, field: e.field, message: e.message }))
+    throw httpError(400, 'unreadable_rows', `The table was refused: ${table.errorCount} problem${table.errorCount === 1 ? '' : 's'}, first at line ${errors[0]?.line}: ${errors[0]?.message}`, { errors, errorCount: table.errorCount })
+  }
+  return table
+}
+
+/** The columns that hold each parameter and the value; parameters with a catalogue default may be left out. */
+export function resolveMapping(set: ReferenceSet, table: ParsedTable, mapping: Record<string, string> | undefined, suggest: (cols: string[], params: string[]) => Record<string, string | undefined>) {
+  if (!isFunctionId(set.functionId)) throw httpError(500, 'bad_set', `Set ${set.id} names an unknown function.`)
+  const specs = CATALOGUE[set.functionId].parameters
+  const chosen = mapping ?? Object.fromEntries(Object.entries(suggest(table.columns, specs.map(p => p.name))).filter(([, v]) => v !== undefined)) as Record<string, string>
+  const index: Record<string, number> = {}
+  const issues: { field: string, message: string }[] = []
+  for (const key of [...specs.map(p => p.name), 'value']) {
+    const col = chosen[key]
+    const spec = specs.find(p => p.name === key)
+    if (!col) {
+      if (!spec || spec.default === undefined) issues.push({ field: `mapping.${key}`, message: `Choose the column that holds ${key === 'value' ? 'the computed value' : key}.` })
+      continue
+    }
+    const j = table.columns.indexOf(col)
+    if (j < 0) issues.push({ field: `mapping.${key}`, message: `There is no column "${col}"; the table has ${table.columns.join(', ')}.` })
+    else index[key] = j
+  }
+  if (issues.length) throw httpError(400, 'invalid_input', `Invalid mapping: ${issues.map(i => i.message).join(' ')}`, { issues })
+  return { index, mapping: Object.fromEntries(Object.entries(index).map(([k, j]) => [k, table.columns[j]!])) }
+}
+
+export interface JudgedRun {
+  results: Array<typeof schema.caseResults.$inferInsert & { _index: number }>
+  summary: ReturnType<typeof summarizeRun>
+}
+
+const key = (s: string | null | undefined) => (s === null || s === undefined || s === '' ? null : Number(s))
+
+/** Judge every case of the set against the table's rows. */
+export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$inferSelect>, table: ParsedTable, index: Record<string, number>): JudgedRun {
+  const params = Object.keys(index).filter(k => k !== 'value')
+  const specs = isFunctionId(set.functionId) ? CATALOGUE[set.functionId].parameters : []
+  const rowInputs = table.rows.map((r) => {
+    const inputs: Record<string, string> = {}
+    for (const p of params) inputs[p] = r.fields[index[p]!]?.raw ?? ''
+    for (const s of specs) if (inputs[s.name] === undefined && s.default !== undefined) inputs[s.name] = s.default
+    return { inputs }
+  })
+  const match = matchRows(cases.map(c => ({ key: c.inputKey })), rowInputs, set.functionId)
+  const criterion = compileCriterion(set.criterion as Criterion)
+  const results: JudgedRun['results'] = []
+  const valueOf = (rowIndex: number) => table.rows[rowIndex]!.fields[index.value!]!
+  for (const m of match.matched) {
+    const c = cases[m.caseIndex]!
+    const f = valueOf(m.rowIndex)
+    const j = judgeCase({ value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' },
+      { raw: f.raw, kind: f.kind, value: f.value, sign: f.sign }, criterion, c.inputs, { region: c.region })
+    results.push({
+      _index: results.length, runId: 0, caseId: c.id, lineNumber: table.rows[m.rowIndex]!.line, inputs: c.inputs, measured: f.raw,
+      absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed === null ? null : String(j.digitsAgreed),
+      region: j.region, relErrorKey: key(j.relError), absErrorKey: key(j.absError), ulpsKey: key(j.ulps), verdict: j.verdict, decidedBy: j.decidedBy,
+    })
+  }
+  for (const d of match.duplicate) {
+    const c = cases[d.caseIndex]!
+    results.push({ _index: results.length, runId: 0, caseId: c.id, lineNumber: table.rows[d.rowIndex]!.line, inputs: c.inputs, measured: valueOf(d.rowIndex).raw, region: c.region, verdict: 'duplicate', decidedBy: `repeats line ${table.rows[d.firstRowIndex]!.line}` })
+  }
+  for (const i of match.missing) {
+    const c = cases[i]!
+    results.push({ _index: results.length, runId: 0, caseId: c.id, inputs: c.inputs, region: c.region, verdict: 'missing', decidedBy: 'no row for this case' })
+  }
+  for (const u of match.unexpected) {
+    results.push({ _index: results.length, runId: 0, caseId: null, lineNumber: table.rows[u.rowIndex]!.line, inputs: rowInputs[u.rowIndex]!.inputs, measured: valueOf(u.rowIndex)?.raw ?? null, region: null, verdict: 'unexpected', decidedBy: u.reason.slice(0, 60) })
+  }
+  const summary = summarizeRun(results.map((r): RunCaseResult => ({ verdict: r.verdict as Verdict, absError: r.absError ?? null, relError: r.relError ?? null, ulps: r.ulps ?? null, region: r.region ?? undefined })))
+  return { results, summary }
+}
+
+export async function loadCases(setId: number) {
+  return useDb().select().from(schema.cases).where(eq(schema.cases.setId, setId)).orderBy(asc(schema.cases.ordinal))
+}
+
+export const sha256Hex = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')
+
+export async function findCode(slug: string) {
+  const [code] = await useDb().select().from(schema.codes).where(eq(schema.codes.slug, slug))
+  if (!code) throw httpError(404, 'not_found', `There is no code "${slug}".`, { issues: [{ field: 'code', message: 'No such code.' }] })
+  return code
+}
+
+export async function findVersion(codeId: number, label: string) {
+  const [v] = await useDb().select().from(schema.versions).where(and(eq(schema.versions.codeId, codeId), eq(schema.versions.label, label)))
+  return v ?? null
+}
+
+export async function findDuplicateRun(versionId: number, setId: number, sha: string) {
+  const [r] = await useDb().select({ id: schema.runs.id, counts: schema.runs.counts }).from(schema.runs)
+    .where(and(eq(schema.runs.versionId, versionId), eq(schema.runs.setId, setId), eq(schema.runs.fileSha256, sha)))
+  return r ?? null
+}
