@@ -45,10 +45,18 @@ export function roundParts(p: SciParts, places: number): SciParts {
   return { sign: p.sign, digits: head.join('').replace(/0+$/, '') || '0', exponent: p.exponent }
 }
 
+/** Significant digits and the exponent of the first one, written out without an exponent. */
+function plainDecimal(digits: string, exponent: number): string {
+  if (exponent < 0) return `0.${'0'.repeat(-exponent - 1)}${digits}`
+  const int = digits.slice(0, exponent + 1).padEnd(exponent + 1, '0')
+  const frac = digits.slice(exponent + 1)
+  return frac ? `${int}.${frac}` : int
+}
+
 export interface ShortNumber { mantissa: string, exponent: number | null, text: string }
 
 /**
- * A short form for tables: plain decimals between 1e-3 and 1e5, otherwise a
+ * A short form for tables: plain decimals from 1e-3 up to 1000, otherwise a
  * mantissa with its power of ten kept apart so the page can set it raised.
  */
 export function shortNumber(text: string | null | undefined, places = 3): ShortNumber | null {
@@ -57,9 +65,8 @@ export function shortNumber(text: string | null | undefined, places = 3): ShortN
   if (!parts) return { mantissa: text, exponent: null, text }
   const r = roundParts(parts, places)
   if (r.digits === '0') return { mantissa: '0', exponent: null, text: '0' }
-  if (r.exponent >= -3 && r.exponent < 5) {
-    const n = Number(`${r.sign}${r.digits[0]}.${r.digits.slice(1) || '0'}e${r.exponent}`)
-    const plain = n.toPrecision(Math.max(r.digits.length, 1)).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '')
+  if (r.exponent >= -3 && r.exponent < 3) {
+    const plain = r.sign + plainDecimal(r.digits, r.exponent)
     return { mantissa: plain, exponent: null, text: plain }
   }
   const mant = `${r.sign}${r.digits[0]}${r.digits.length > 1 ? '.' + r.digits.slice(1) : ''}`

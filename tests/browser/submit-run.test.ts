@@ -159,6 +159,9 @@ describe('submit a table and read the run', () => {
     await table.waitFor()
     const failCount = Number((await page.getByTestId('run-counts').locator('[data-count="fail"]').innerText()).replace(/\D+/g, ''))
 
+    // Choosing a failed cell on the map names the case and offers its verdict as a filter.
+    await page.getByTestId('error-map').locator('g[role="button"][data-verdict="fail"]').first().click()
+    await expect.poll(() => page.getByTestId('map-picked').innerText()).toMatch(/n = \d+.*fail/s)
     await page.getByTestId('filter-verdict-fail').check()
     await expect.poll(() => page.getByTestId('case-total').innerText()).toBe(String(failCount))
     const verdictCells = table.locator('tbody [data-verdict]')
@@ -168,6 +171,10 @@ describe('submit a table and read the run', () => {
     await page.getByTestId('sort-ulps').click()
     await page.getByTestId('sort-ulps').click()
     await expect.poll(() => page.getByTestId('sort-ulps').locator('xpath=..').getAttribute('aria-sort')).toBe('descending')
+    await expect.poll(() => table.locator('[aria-busy]').getAttribute('aria-busy')).toBe('false')
+    const ulps = await table.locator('tbody tr[data-case] td:nth-last-child(3)').allInnerTexts()
+    const ulpNumbers = ulps.map(t => Number(t.replace('×10', 'e').replace(/\s/g, '')))
+    expect(ulpNumbers).toEqual([...ulpNumbers].sort((a, b) => b - a))
     await table.getByTestId('case-expand').first().click()
     const diff = table.getByTestId('digit-diff')
     await diff.waitFor()
@@ -182,6 +189,12 @@ describe('submit a table and read the run', () => {
     await page.setViewportSize({ width: 390, height: 844 })
     await noSideScroll(page)
     await page.screenshot({ path: join(SCREENSHOTS, 'run-owner-failures-390.png'), fullPage: true })
+    // Close-ups at 390 px of the parts that are hard to read in a full-page shot.
+    await page.getByTestId('run-counts').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-counts.png') })
+    await page.getByTestId('error-map').locator('xpath=..').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-map.png') })
+    await diff.screenshot({ path: join(SCREENSHOTS, 'run-owner-390-diff.png') })
+    await page.getByTestId('run-worst').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-worst.png') })
+    await table.locator('form').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-filters.png') })
     await page.close()
   })
 })
