@@ -38,6 +38,13 @@ export default defineNuxtConfig({
   },
   nitro: {
     experimental: { tasks: false },
+    esbuild: { options: { target: 'es2022' } },
+  },
+  // The engine and the judging rules (shared/) use BigInt literals.
+  vite: {
+    build: { target: 'es2022' },
+    esbuild: { target: 'es2022' },
+    optimizeDeps: { esbuildOptions: { target: 'es2022' } },
   },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },

@@ -28,5 +28,10 @@ echo "Plumbline on http://$HOST:$PORT (demo sign-ins are in README.md)"
 # The job worker computes reference sets off the web server's request thread.
 node --import tsx scripts/worker.ts &
 worker_pid=$!
-trap 'kill "$worker_pid" 2>/dev/null || true' EXIT
-node .output/server/index.mjs
+node .output/server/index.mjs &
+server_pid=$!
+trap 'kill "$worker_pid" "$server_pid" 2>/dev/null || true' EXIT
+for _ in $(seq 1 100); do curl -fsS "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.2; done
+# Demo reference sets and runs, through the server's own API (idempotent).
+npx tsx scripts/seed-runs.ts "http://$HOST:$PORT" || echo "WARNING: the demo runs could not be made; the app is running without them" >&2
+wait "$server_pid"
