@@ -114,6 +114,7 @@ describe('submit a table and read the run', () => {
     await page.setViewportSize({ width: 390, height: 844 })
     await noSideScroll(page)
     await page.screenshot({ path: join(SCREENSHOTS, 'submit-mapping-390.png'), fullPage: true })
+    await preview.screenshot({ path: join(SCREENSHOTS, 'submit-mapping-390-preview.png') })
     await page.setViewportSize({ width: 1280, height: 900 })
 
     await page.getByTestId('judge').click()
@@ -145,6 +146,7 @@ describe('submit a table and read the run', () => {
     await page.setViewportSize({ width: 390, height: 844 })
     await noSideScroll(page)
     await page.screenshot({ path: join(SCREENSHOTS, 'run-qa-390.png'), fullPage: true })
+    await page.screenshot({ path: join(SCREENSHOTS, 'run-qa-390-top.png') })
     await page.close()
   })
 
@@ -193,6 +195,7 @@ describe('submit a table and read the run', () => {
     await page.getByTestId('run-counts').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-counts.png') })
     await page.getByTestId('error-map').locator('xpath=..').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-map.png') })
     await diff.screenshot({ path: join(SCREENSHOTS, 'run-owner-390-diff.png') })
+    await table.locator('tbody').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-rows.png') })
     await page.getByTestId('run-worst').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-worst.png') })
     await table.locator('form').screenshot({ path: join(SCREENSHOTS, 'run-owner-390-filters.png') })
     await page.close()
