@@ -42,6 +42,7 @@ let browser: Session
 let setId = 0
 let setName = ''
 let runPath = ''
+let versionLabel = ''
 
 beforeAll(async () => {
   const qa = await signedIn('qa')
@@ -94,7 +95,8 @@ describe('submit a table and read the run', () => {
     await expect.poll(() => page.getByTestId('caution').innerText()).toContain('not a substitute')
 
     await page.getByLabel('Code', { exact: true }).selectOption('oscillite')
-    await page.getByLabel('New version label').fill(unique('9.9.0-check'))
+    versionLabel = unique('9.9.0-check')
+    await page.getByLabel('New version label').fill(versionLabel)
     await page.getByLabel('Commit id (optional)').fill('5f0c2d1e')
     await page.getByLabel('Compiler').fill('gfortran 13.2')
     await page.getByLabel('Flags').fill('-O2')
@@ -147,6 +149,24 @@ describe('submit a table and read the run', () => {
     await noSideScroll(page)
     await page.screenshot({ path: join(SCREENSHOTS, 'run-qa-390.png'), fullPage: true })
     await page.screenshot({ path: join(SCREENSHOTS, 'run-qa-390-top.png') })
+    await page.close()
+  })
+
+  it('the same file for the same version and set is recognised, not judged twice', async () => {
+    expect(runPath).toMatch(/^\/runs\/\d+$/)
+    const page = await browser.context.newPage()
+    await page.goto('/submit')
+    await page.getByLabel('Code', { exact: true }).selectOption('oscillite')
+    await page.getByLabel('an existing version').check()
+    await page.getByLabel('Existing version').selectOption(versionLabel)
+    await page.getByLabel('Reference set').selectOption(String(setId))
+    await page.getByTestId('file-input').setInputFiles({ name: 'oscillite-hermite.csv', mimeType: 'text/csv', buffer: Buffer.from(outputTable()) })
+    await page.getByTestId('mapping-preview').waitFor()
+    await page.getByTestId('judge').click()
+    const dup = page.getByTestId('judge-duplicate')
+    await dup.waitFor()
+    expect(await dup.getByRole('link').getAttribute('href')).toBe(runPath)
+    expect(new URL(page.url()).pathname).toBe('/submit')
     await page.close()
   })
 
