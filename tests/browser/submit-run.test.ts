@@ -158,7 +158,7 @@ describe('submit a table and read the run', () => {
     await page.goto('/submit')
     await page.getByLabel('Code', { exact: true }).selectOption('oscillite')
     await page.getByLabel('an existing version').check()
-    await page.getByLabel('Existing version').selectOption(versionLabel)
+    await page.getByLabel('Which existing version').selectOption(versionLabel)
     await page.getByLabel('Reference set').selectOption(String(setId))
     await page.getByTestId('file-input').setInputFiles({ name: 'oscillite-hermite.csv', mimeType: 'text/csv', buffer: Buffer.from(outputTable()) })
     await page.getByTestId('mapping-preview').waitFor()
