@@ -145,7 +145,7 @@ export function draftToInput(d: ReferenceSetDraft): { input: ReferenceSetInput, 
       if (fields.length !== columns.length) {
         issues.push({ field: `grid.parts.${i}.points`, message: `Line ${ln + 1} has ${fields.length} value${fields.length === 1 ? '' : 's'}; expected ${columns.length} (${columns.join(', ')}).` })
       }
-      points.push(Object.fromEntries(columns.map((c, j) => [c, fields[j] ?? ''])))
+      points.push(Object.fromEntries(columns.flatMap((c, j) => (fields[j] === undefined ? [] : [[c, fields[j]]]))))
     })
     return { kind: 'points' as const, points }
   })

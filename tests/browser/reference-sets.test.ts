@@ -63,6 +63,20 @@ describe('reference sets in the browser', () => {
     await page.getByLabel('x step', { exact: true }).fill('0.5')
     await expect.poll(() => page.locator('#gp0-a1-step-error').count()).toBe(0)
 
+    // The other part kinds: a random box, and pasted points where one line lacks its x.
+    await page.getByRole('button', { name: 'Add random box' }).click()
+    await page.locator('#gp1-count').fill('')
+    await page.getByRole('button', { name: 'Add explicit points' }).click()
+    await page.locator('#gp2-points').fill('25,0.5\n30')
+    await page.getByRole('button', { name: 'Preview' }).click()
+    await expect.poll(() => page.locator('#gp2-points-error').innerText()).toContain('Line 2 has 1 value; expected 2 (n, x)')
+    expect(await page.locator('#gp1-count-error').innerText()).toBe('Enter a whole number.')
+    expect(await page.getByTestId('form-issues').innerText()).toMatch(/2 fields need attention/)
+    await shoot(page, 'reference-set-form-issues')
+    await page.getByTestId('grid-part-2').getByRole('button', { name: 'Remove part' }).click()
+    await page.getByTestId('grid-part-1').getByRole('button', { name: 'Remove part' }).click()
+    await expect.poll(() => page.getByTestId('form-issues').count()).toBe(0)
+
     // A looser bound in the tails, past the oscillatory range |x| > sqrt(2n+1).
     await page.getByRole('button', { name: 'Add region' }).click()
     await page.locator('#reg-0-name').fill('tail')
