@@ -16,6 +16,7 @@ case "$name" in
   dev) port="${PLUMBLINE_DEV_DB_PORT:-3307}" ;;
   test) port="${PLUMBLINE_TEST_DB_PORT:-3308}" ;;
   scratch) port="${PLUMBLINE_SCRATCH_DB_PORT:-3309}" ;; # used only by this script's own test
+  bench) port="${PLUMBLINE_BENCH_DB_PORT:-3310}" ;; # used only by npm run bench
   *) echo "unknown instance '$name' (use dev or test)" >&2; exit 2 ;;
 esac
 
