@@ -67,7 +67,8 @@ export function useReferenceSetIssues() {
   }
 
   const unplaced = computed(() => Object.entries(issues.value).filter(([k]) => !PLACED.some(re => re.test(k))))
-  const count = computed(() => Object.keys(issues.value).length)
+  // Point-by-point issues of one part count once.
+  const count = computed(() => new Set(Object.keys(issues.value).map(k => k.replace(/\.points\.\d+(\..*)?$/, '.points'))).size)
 
   return { issues, general, add, reset, fromZod, fromServer, under, unplaced, count }
 }

@@ -63,6 +63,14 @@ describe('reference sets in the browser', () => {
     await page.getByLabel('x step', { exact: true }).fill('0.5')
     await expect.poll(() => page.locator('#gp0-a1-step-error').count()).toBe(0)
 
+    // A degree past the catalogue's domain passes the schema; the server's 400 lands on the grid part.
+    await page.getByLabel('n stop', { exact: true }).fill('30000')
+    await page.getByRole('button', { name: 'Preview' }).click()
+    await expect.poll(() => page.getByTestId('grid-part-0').getByRole('alert').count()).toBe(1)
+    expect(await page.getByTestId('grid-part-0').getByRole('alert').innerText()).toMatch(/\bn\b/)
+    await shoot(page, 'reference-set-form-server-issue')
+    await page.getByLabel('n stop', { exact: true }).fill('20')
+
     // The other part kinds: a random box, and pasted points where one line lacks its x.
     await page.getByRole('button', { name: 'Add random box' }).click()
     await page.locator('#gp1-count').fill('')
@@ -150,6 +158,12 @@ describe('reference sets in the browser', () => {
     await page.waitForURL(url => /\/reference-sets\/\d+$/.test(url.pathname) && url.pathname !== setPath, { timeout: 30_000 })
     await expect.poll(() => page.locator('body').innerText()).toContain('Revision 2')
     expect(await page.getByRole('link', { name: 'r1' }).getAttribute('href')).toBe(setPath)
+
+    // The slug is taken now: the server's 409 names the slug field.
+    await page.goto('/reference-sets/new')
+    await page.getByLabel('Name', { exact: true }).fill(name)
+    await page.getByRole('button', { name: 'Save', exact: true }).click()
+    await expect.poll(() => page.locator('#set-slug-error').innerText()).toContain('taken')
     await page.close()
   })
 
