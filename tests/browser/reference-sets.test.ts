@@ -174,6 +174,8 @@ describe('reference sets in the browser', () => {
     await page.goto('/reference-sets')
     await expect.poll(() => page.getByTestId('sets-table').innerText()).toContain(name)
     expect(await page.getByRole('link', { name: 'New reference set' }).count()).toBe(0)
+    expect(await page.getByTestId('sets-table').getByRole('link', { name }).getAttribute('href')).toMatch(/^\/reference-sets\/\d+$/)
+    await shoot(page, 'reference-sets-index-viewer')
     await page.goto(setPath)
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(name)
     expect(await page.getByRole('link', { name: 'Edit as new revision' }).count()).toBe(0)
