@@ -19,7 +19,7 @@ execFileSync('npx', ['tsx', 'scripts/migrate.ts'], { cwd: root, env, stdio: 'ign
 execFileSync('npx', ['tsx', 'scripts/seed.ts'], { cwd: root, env, stdio: 'ignore' })
 if (!existsSync(join(root, '.output/server/index.mjs'))) execFileSync('npx', ['nuxt', 'build'], { cwd: root, stdio: ['ignore', 'ignore', 'inherit'] })
 
-const server = spawn('node', ['.output/server/index.mjs'], { cwd: root, env: { ...env, PORT: String(PORT), HOST: '127.0.0.1', NUXT_SESSION_PASSWORD: 'plumbline-bench-session-password-0123456789' }, stdio: 'ignore' })
+const server = spawn('node', ['.output/server/index.mjs'], { cwd: root, env: { ...env, PLUMBLINE_TIMING: process.env.PLUMBLINE_TIMING ?? '0', PORT: String(PORT), HOST: '127.0.0.1', NUXT_SESSION_PASSWORD: 'plumbline-bench-session-password-0123456789' }, stdio: ['ignore', 'inherit', 'inherit'] })
 const worker = spawn('node', ['--import', 'tsx', 'scripts/worker.ts'], { cwd: root, env, stdio: 'ignore' })
 const stop = () => { server.kill('SIGKILL'); worker.kill('SIGKILL') }
 process.on('exit', stop)

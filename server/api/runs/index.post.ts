@@ -18,14 +18,20 @@ export default defineEventHandler(async (event) => {
     const dup = await findDuplicateRun(version.id, set.id, sha)
     if (dup) return { run: { id: dup.id, counts: dup.counts }, duplicate: true }
   }
+  const clock = stepClock()
   const table = parseUploadedTable(upload.data)
+  clock('parse')
   const { index, mapping } = resolveMapping(set, table, fields.mapping, (c, p) => suggestColumnMapping(c, p).mapping)
-  const judged = judgeTable(set, await loadCases(set.id), table, index)
+  const cases = await loadCases(set.id)
+  clock('load cases')
+  const judged = judgeTable(set, cases, table, index)
+  clock('match and judge')
   const actor = user ?? { id: null, email: `token:${token!.prefix}` }
   const runId = await storeRun({
     set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment,
     fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: token?.id ?? null,
   })
+  clock('store')
   setResponseStatus(event, 201)
   return { run: { id: runId, counts: judged.summary.counts }, duplicate: false }
 })
