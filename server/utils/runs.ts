@@ -57,6 +57,7 @@ export interface CaseFilter {
   region?: string
   minRel?: number
   maxRel?: number
+  caseId?: number
 }
 
 export function caseWhere(runId: number, f: CaseFilter): SQL {
@@ -65,6 +66,7 @@ export function caseWhere(runId: number, f: CaseFilter): SQL {
   if (f.region) parts.push(eq(r().region, f.region))
   if (f.minRel !== undefined) parts.push(gte(r().relErrorKey, f.minRel))
   if (f.maxRel !== undefined) parts.push(lte(r().relErrorKey, f.maxRel))
+  if (f.caseId !== undefined) parts.push(eq(r().id, f.caseId))
   return and(...parts)!
 }
 

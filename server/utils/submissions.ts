@@ -6,11 +6,11 @@ import { createHash } from 'node:crypto'
 import type { H3Event } from 'h3'
 import { and, asc, eq } from 'drizzle-orm'
 import { MAX_TABLE_BYTES, parseTable, type ParsedTable } from '../../shared/parse'
-import { compileCriterion, judgeCase, matchRows, summarizeRun, type RunCaseResult } from '../../shared/compare'
+import { judgeRun } from '../../shared/compare/run'
+import type { summarizeRun } from '../../shared/compare'
 import { CATALOGUE, isFunctionId } from '../../shared/reference'
 import { submissionSchema, type SubmissionFields } from '../../shared/schemas/submission'
 import type { Criterion } from '../../shared/schemas/criterion'
-import type { Verdict } from '../../shared/domain/enums'
 import type { ReferenceSet } from '../database/schema'
 
 export interface Upload { fileName: string, data: Buffer, fields: Record<string, unknown> }
@@ -98,44 +98,32 @@ export interface JudgedRun {
 
 const key = (s: string | null | undefined) => (s === null || s === undefined || s === '' ? null : Number(s))
 
-/** Judge every case of the set against the table's rows. */
+/** Judge every case of the set against the table's rows (shared/compare/run.ts), as rows ready to store. */
 export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$inferSelect>, table: ParsedTable, index: Record<string, number>): JudgedRun {
   const params = Object.keys(index).filter(k => k !== 'value')
   const specs = isFunctionId(set.functionId) ? CATALOGUE[set.functionId].parameters : []
-  const rowInputs = table.rows.map((r) => {
+  const rows = table.rows.map((r) => {
     const inputs: Record<string, string> = {}
     for (const p of params) inputs[p] = r.fields[index[p]!]?.raw ?? ''
     for (const s of specs) if (inputs[s.name] === undefined && s.default !== undefined) inputs[s.name] = s.default
-    return { inputs }
+    const f = r.fields[index.value!]
+    return { inputs, measured: f ? { raw: f.raw, kind: f.kind, value: f.value, sign: f.sign } : { raw: '', kind: 'empty' as const } }
   })
-  const match = matchRows(cases.map(c => ({ key: c.inputKey })), rowInputs, set.functionId)
-  const criterion = compileCriterion(set.criterion as Criterion)
-  const results: JudgedRun['results'] = []
-  const valueOf = (rowIndex: number) => table.rows[rowIndex]!.fields[index.value!]!
-  for (const m of match.matched) {
-    const c = cases[m.caseIndex]!
-    const f = valueOf(m.rowIndex)
-    const j = judgeCase({ value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' },
-      { raw: f.raw, kind: f.kind, value: f.value, sign: f.sign }, criterion, c.inputs, { region: c.region })
-    results.push({
-      _index: results.length, runId: 0, caseId: c.id, lineNumber: table.rows[m.rowIndex]!.line, inputs: c.inputs, measured: f.raw,
-      absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed === null ? null : String(j.digitsAgreed),
-      region: j.region, relErrorKey: key(j.relError), absErrorKey: key(j.absError), ulpsKey: key(j.ulps), verdict: j.verdict, decidedBy: j.decidedBy,
-    })
-  }
-  for (const d of match.duplicate) {
-    const c = cases[d.caseIndex]!
-    results.push({ _index: results.length, runId: 0, caseId: c.id, lineNumber: table.rows[d.rowIndex]!.line, inputs: c.inputs, measured: valueOf(d.rowIndex).raw, region: c.region, verdict: 'duplicate', decidedBy: `repeats line ${table.rows[d.firstRowIndex]!.line}` })
-  }
-  for (const i of match.missing) {
-    const c = cases[i]!
-    results.push({ _index: results.length, runId: 0, caseId: c.id, inputs: c.inputs, region: c.region, verdict: 'missing', decidedBy: 'no row for this case' })
-  }
-  for (const u of match.unexpected) {
-    results.push({ _index: results.length, runId: 0, caseId: null, lineNumber: table.rows[u.rowIndex]!.line, inputs: rowInputs[u.rowIndex]!.inputs, measured: valueOf(u.rowIndex)?.raw ?? null, region: null, verdict: 'unexpected', decidedBy: u.reason.slice(0, 60) })
-  }
-  const summary = summarizeRun(results.map((r): RunCaseResult => ({ verdict: r.verdict as Verdict, absError: r.absError ?? null, relError: r.relError ?? null, ulps: r.ulps ?? null, region: r.region ?? undefined })))
-  return { results, summary }
+  const runCases = cases.map(c => ({ key: c.inputKey, inputs: c.inputs, region: c.region, reference: { value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' } }))
+  const { results, summary } = judgeRun(set.functionId, runCases, rows, set.criterion as Criterion)
+  const lineOf = (rowIndex: number | null) => (rowIndex === null ? null : table.rows[rowIndex]!.line)
+  const stored = results.map((r, i) => {
+    const c = r.caseIndex === null ? null : cases[r.caseIndex]!
+    const dup = /^duplicate-of-row:(\d+)$/.exec(r.decidedBy)
+    return {
+      _index: i, runId: 0, caseId: c?.id ?? null, lineNumber: lineOf(r.rowIndex),
+      inputs: c?.inputs ?? (r.rowIndex === null ? null : rows[r.rowIndex]!.inputs), measured: r.measured,
+      absError: r.absError, relError: r.relError, ulps: r.ulps, digitsAgreed: r.digitsAgreed === null ? null : String(r.digitsAgreed),
+      region: r.region ?? null, relErrorKey: key(r.relError), absErrorKey: key(r.absError), ulpsKey: key(r.ulps),
+      verdict: r.verdict, decidedBy: dup ? `repeats line ${lineOf(Number(dup[1]))}` : r.decidedBy.slice(0, 60),
+    }
+  })
+  return { results: stored, summary }
 }
 
 export async function loadCases(setId: number) {

@@ -104,7 +104,7 @@ export interface RunCasePage {
 export interface ErrorMapPoint {
   x: number
   y: number
-  /** log10 of the ULP distance (or of the relative error when ULPs are not defined); null for non-finite. */
+  /** log10 of the ULP distance (or of the relative error when ULPs are not defined); null for non-finite; −20 stands for an error of exactly zero. */
   log10: number | null
   verdict: Verdict
   caseId: number

@@ -199,6 +199,9 @@ describe('submissions', () => {
     const map = (await viewer.get(`/api/runs/${r.body.run.id}/map`)).body
     expect(map).toMatchObject({ xParam: 'x', yParam: 'n', metric: 'ulps' })
     expect(map.points).toHaveLength(20)
+    const one = await viewer.get(`/api/runs/${r.body.run.id}/cases?caseId=${map.points[3].caseId}`)
+    expect(one.body.total).toBe(1)
+    expect(one.body.rows[0].id).toBe(map.points[3].caseId)
   })
 })
 

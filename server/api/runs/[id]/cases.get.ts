@@ -13,6 +13,8 @@ const query = z.object({
   region: z.string().max(60).optional(),
   minRel: z.coerce.number().nonnegative().optional(),
   maxRel: z.coerce.number().nonnegative().optional(),
+  /** One case result by its id (the error map's caseId). */
+  caseId: z.coerce.number().int().positive().optional(),
 })
 
 // One page of a run's case results, sorted and filtered in the database.
