@@ -19,6 +19,7 @@ async function call(method: string, path: string, body?: unknown | FormData) {
   })
   const set = res.headers.getSetCookie().find(c => c.startsWith('plumbline-session='))
   if (set) cookie = set.split(';')[0]!
+  // eslint-disable-next-line @typescript-eslint/no-explicit-any -- replies of our own API, each read field by field below
   const json = await res.json().catch(() => null) as any
   if (res.status >= 400 && res.status !== 409) throw new Error(`${method} ${path}: ${res.status} ${json?.message ?? ''}`)
   return { status: res.status, body: json }
