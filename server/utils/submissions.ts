@@ -104,7 +104,11 @@ export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$
   const specs = isFunctionId(set.functionId) ? CATALOGUE[set.functionId].parameters : []
   const rows = table.rows.map((r) => {
     const inputs: Record<string, string> = {}
-    for (const p of params) inputs[p] = r.fields[index[p]!]?.raw ?? ''
+    // inputs by their exact value, so 0x1p-1, 5.0D-01 and 0.5 all name the case x = 0.5
+    for (const p of params) {
+      const f = r.fields[index[p]!]
+      inputs[p] = f?.kind === 'number' && f.value !== undefined ? f.value : f?.raw ?? ''
+    }
     for (const s of specs) if (inputs[s.name] === undefined && s.default !== undefined) inputs[s.name] = s.default
     const f = r.fields[index.value!]
     return { inputs, measured: f ? { raw: f.raw, kind: f.kind, value: f.value, sign: f.sign } : { raw: '', kind: 'empty' as const } }
