@@ -42,6 +42,7 @@ export interface StoreInput {
 export async function storeRun(input: StoreInput): Promise<number> {
   const db = useDb()
   const { summary, results } = input.judged
+  const clock = stepClock()
   return db.transaction(async (tx) => {
     let versionId = input.versionId
     if (!versionId) {
@@ -60,9 +61,15 @@ export async function storeRun(input: StoreInput): Promise<number> {
     }).$returningId()
     const runId = run!.id
     await tx.insert(schema.runFiles).values({ runId, content: input.data })
+    clock('store: run row and file')
+    let formatMs = 0
     for (let i = 0; i < results.length; i += BATCH) {
-      await tx.execute(sql.raw(resultsInsert(runId, results.slice(i, i + BATCH))))
+      const t = performance.now()
+      const statement = resultsInsert(runId, results.slice(i, i + BATCH))
+      formatMs += performance.now() - t
+      await tx.execute(sql.raw(statement))
     }
+    clock(`store: case results (${formatMs.toFixed(0)} ms of it building the statements)`)
     const worst = overall.worst ? results[overall.worst.index] : undefined
     if (worst) {
       const [w] = await tx.select({ id: schema.caseResults.id }).from(schema.caseResults).where(and(
@@ -73,6 +80,7 @@ export async function storeRun(input: StoreInput): Promise<number> {
       if (w) await tx.update(schema.runs).set({ worstCaseId: w.id }).where(eq(schema.runs.id, runId))
     }
     await tx.update(schema.referenceSets).set({ frozenAt: new Date() }).where(and(eq(schema.referenceSets.id, input.set.id), isNull(schema.referenceSets.frozenAt)))
+    clock('store: worst case and freeze')
     await recordAudit(tx, input.actor, 'submit-run', 'run', runId, { versionId, setId: input.set.id, sha256: input.sha, counts: overall.counts })
     return runId
   })

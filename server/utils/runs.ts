@@ -8,8 +8,12 @@ import { VERDICTS, type Verdict } from '../../shared/domain/enums'
 const r = () => schema.caseResults
 const c = () => schema.cases
 
+/** A result's inputs: its case's, or its own for a row that matched no case. */
+export const caseInputs = () => sql<Record<string, string> | null>`COALESCE(${r().inputs}, ${c().inputs})`
+  .mapWith((v: unknown) => (typeof v === 'string' ? JSON.parse(v) as Record<string, string> : v as Record<string, string> | null))
+
 export const caseRowColumns = () => ({
-  id: r().id, line: r().lineNumber, inputs: r().inputs, region: r().region, measured: r().measured,
+  id: r().id, line: r().lineNumber, inputs: caseInputs(), region: r().region, measured: r().measured,
   reference: c().referenceValue, referenceDigits: c().certifiedDigits, kappa: c().conditionNumber,
   absError: r().absError, relError: r().relError, ulps: r().ulps, digitsAgreed: r().digitsAgreed,
   verdict: r().verdict, decidedBy: r().decidedBy,

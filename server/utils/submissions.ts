@@ -121,7 +121,8 @@ export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$
     const dup = /^duplicate-of-row:(\d+)$/.exec(r.decidedBy)
     return {
       _index: i, runId: 0, caseId: c?.id ?? null, lineNumber: lineOf(r.rowIndex),
-      inputs: c?.inputs ?? (r.rowIndex === null ? null : rows[r.rowIndex]!.inputs), measured: r.measured,
+      // a case's inputs live with the case; only rows that match no case keep their own
+      inputs: c ? null : (r.rowIndex === null ? null : rows[r.rowIndex]!.inputs), measured: r.measured,
       absError: r.absError, relError: r.relError, ulps: r.ulps, digitsAgreed: r.digitsAgreed === null ? null : String(r.digitsAgreed),
       region: r.region ?? null, relErrorKey: key(r.relError), absErrorKey: key(r.absError), ulpsKey: key(r.ulps),
       verdict: r.verdict, decidedBy: dup ? `repeats line ${lineOf(Number(dup[1]))}` : r.decidedBy.slice(0, 60),
