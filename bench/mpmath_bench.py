@@ -4,12 +4,15 @@ prints the timings in milliseconds ([wall, process CPU]) as JSON. Each timed bod
 work only; inputs are converted before the clock starts.
 """
 import json
-import math
+import os
 import sys
 import time
 
 import mpmath
 from mpmath import mp, mpf
+
+sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), '..', 'scripts', 'reference'))
+from mp_reference import float_zeros  # noqa: E402  (double-precision starts, shared with the fixture generator)
 
 
 def best_of(fn, repeats):
@@ -21,31 +24,6 @@ def best_of(fn, repeats):
         wall = min(wall, time.perf_counter() - t)
         cpu = min(cpu, time.process_time() - c)
     return [wall * 1000, cpu * 1000]
-
-
-def float_zeros(n):
-    def f(x):
-        pp, p = 1.0, math.sqrt(2) * x
-        for k in range(1, n):
-            pp, p = p, math.sqrt(2 / (k + 1)) * x * p - math.sqrt(k / (k + 1)) * pp
-        return p
-    h = math.pi / math.sqrt(2 * n + 1) / 16
-    out, a = [], (h / 2 if n % 2 else 0.0)
-    fa = f(a)
-    while len(out) < n // 2:
-        b = a + h
-        fb = f(b)
-        if (fa < 0) != (fb < 0):
-            lo, hi = a, b
-            for _ in range(60):
-                mid = (lo + hi) / 2
-                if (f(mid) < 0) == (fa < 0):
-                    lo = mid
-                else:
-                    hi = mid
-            out.append((lo + hi) / 2)
-        a, fa = b, fb
-    return out
 
 
 def main():
