@@ -2,7 +2,7 @@
 // schema, then expanding its grid so domain errors come back as 400s), the
 // summary shape pages read, and re-rounding stored values for downloads.
 import Decimal from 'decimal.js'
-import { and, count, desc, eq } from 'drizzle-orm'
+import { count, desc, eq } from 'drizzle-orm'
 import { expandReferenceSet, GridError, type SetCase } from '../../shared/grid'
 import { CATALOGUE, evaluate, isFunctionId } from '../../shared/reference'
 import { referenceSetSchema, type ReferenceSetDefinition } from '../../shared/schemas/reference-set'
@@ -56,7 +56,7 @@ export async function latestRevision(slug: string) {
 }
 
 export async function runCount(setId: number) {
-  const [row] = await useDb().select({ n: count() }).from(schema.runs).where(and(eq(schema.runs.setId, setId)))
+  const [row] = await useDb().select({ n: count() }).from(schema.runs).where(eq(schema.runs.setId, setId))
   return row?.n ?? 0
 }
 

@@ -12,7 +12,7 @@ const BATCH = 5000
 const RESULT_COLUMNS = ['run_id', 'case_id', 'line_number', 'inputs', 'measured', 'abs_error', 'rel_error', 'ulps', 'digits_agreed',
   'region', 'rel_error_key', 'abs_error_key', 'ulps_key', 'verdict', 'decided_by'] as const
 
-type ResultRow = Omit<JudgedRun['results'][number], '_index'>
+type ResultRow = JudgedRun['results'][number]
 
 /** One multi-row INSERT as text: values escaped by mysql2 (JSON as strings), far faster than bound parameters for large runs. */
 function resultsInsert(runId: number, rows: ResultRow[]): string {

@@ -92,7 +92,8 @@ export function resolveMapping(set: ReferenceSet, table: ParsedTable, mapping: R
 }
 
 export interface JudgedRun {
-  results: Array<typeof schema.caseResults.$inferInsert & { _index: number }>
+  /** In the order of shared/compare/run.ts, so summary.worst.index points into it. */
+  results: Array<typeof schema.caseResults.$inferInsert>
   summary: ReturnType<typeof summarizeRun>
 }
 
@@ -116,11 +117,11 @@ export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$
   const runCases = cases.map(c => ({ key: c.inputKey, inputs: c.inputs, region: c.region, reference: { value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' } }))
   const { results, summary } = judgeRun(set.functionId, runCases, rows, set.criterion as Criterion)
   const lineOf = (rowIndex: number | null) => (rowIndex === null ? null : table.rows[rowIndex]!.line)
-  const stored = results.map((r, i) => {
+  const stored = results.map((r) => {
     const c = r.caseIndex === null ? null : cases[r.caseIndex]!
     const dup = /^duplicate-of-row:(\d+)$/.exec(r.decidedBy)
     return {
-      _index: i, runId: 0, caseId: c?.id ?? null, lineNumber: lineOf(r.rowIndex),
+      runId: 0, caseId: c?.id ?? null, lineNumber: lineOf(r.rowIndex),
       // a case's inputs live with the case; only rows that match no case keep their own
       inputs: c ? null : (r.rowIndex === null ? null : rows[r.rowIndex]!.inputs), measured: r.measured,
       absError: r.absError, relError: r.relError, ulps: r.ulps, digitsAgreed: r.digitsAgreed === null ? null : String(r.digitsAgreed),
