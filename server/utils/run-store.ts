@@ -1,26 +1,67 @@
 // Storing a judged run: one transaction for the version (when new), the run,
 // its raw file, every case result, the set's freeze and the audit entry.
 // Either all of it is stored or none of it.
-import { and, eq, isNull, sql } from 'drizzle-orm'
-import mysql from 'mysql2'
+//
+// Case results go in with LOAD DATA LOCAL INFILE, a chunk at a time, each
+// chunk sent while the next one is judged: MariaDB inserts on one core while
+// Node judges on the other. LOCAL turns data errors into warnings, so every
+// chunk must come back with as many rows and no warning, or the transaction
+// is rolled back.
+import { Readable } from 'node:stream'
+import { and, eq, isNull } from 'drizzle-orm'
+import { drizzle } from 'drizzle-orm/mysql2'
+import type { PoolConnection, ResultSetHeader } from 'mysql2/promise'
 import type { BuildEnvironment, ReferenceSet } from '../database/schema'
 import type { JudgedRun } from './submissions'
 import type { CurrentUser } from './auth'
 
-const BATCH = 5000
-
 const RESULT_COLUMNS = ['run_id', 'case_id', 'line_number', 'inputs', 'measured', 'abs_error', 'rel_error', 'ulps', 'digits_agreed',
   'region', 'rel_error_key', 'abs_error_key', 'ulps_key', 'verdict', 'decided_by'] as const
 
-type ResultRow = JudgedRun['results'][number]
+const LOAD_RESULTS = `LOAD DATA LOCAL INFILE 'case-results.tsv' INTO TABLE case_results CHARACTER SET utf8mb4
+  FIELDS TERMINATED BY '\\t' ESCAPED BY '\\\\' LINES TERMINATED BY '\\n' (${RESULT_COLUMNS.join(', ')})`
 
-/** One multi-row INSERT as text: values escaped by mysql2 (JSON as strings), far faster than bound parameters for large runs. */
-function resultsInsert(runId: number, rows: ResultRow[]): string {
-  const num = (v: number | null | undefined) => (v === null || v === undefined || !Number.isFinite(v) ? null : v)
-  const values = rows.map(r => [runId, r.caseId ?? null, r.lineNumber ?? null, r.inputs ? JSON.stringify(r.inputs) : null, r.measured ?? null,
-    r.absError ?? null, r.relError ?? null, r.ulps ?? null, r.digitsAgreed ?? null, r.region ?? null,
-    num(r.relErrorKey), num(r.absErrorKey), num(r.ulpsKey), r.verdict, r.decidedBy])
-  return mysql.format(`INSERT INTO case_results (${RESULT_COLUMNS.join(', ')}) VALUES ?`, [values])
+type ResultRow = typeof schema.caseResults.$inferInsert
+
+/** One field of LOAD DATA's default text format: \N for NULL; backslash, tab, newline, CR and NUL escaped. */
+function tsvField(v: string | number | null | undefined): string {
+  if (v === null || v === undefined) return '\\N'
+  if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N'
+  return /[\\\t\n\r\0]/.test(v) ? v.replace(/[\\\t\n\r\0]/g, c => ESCAPES[c]!) : v
+}
+const ESCAPES: Record<string, string> = { '\\': '\\\\', '\t': '\\t', '\n': '\\n', '\r': '\\r', '\0': '\\0' }
+
+/** The rows of one chunk in LOAD DATA's text format, columns as RESULT_COLUMNS. */
+export function resultsTsv(runId: number, rows: ResultRow[]): Buffer {
+  const lines = rows.map(r => [runId, r.caseId, r.lineNumber, r.inputs ? JSON.stringify(r.inputs) : null, r.measured,
+    r.absError, r.relError, r.ulps, r.digitsAgreed, r.region,
+    r.relErrorKey, r.absErrorKey, r.ulpsKey, r.verdict, r.decidedBy].map(tsvField).join('\t'))
+  return Buffer.from(lines.join('\n') + '\n', 'utf8')
+}
+
+/**
+ * Start loading one chunk. `sent` settles once the whole chunk has been
+ * handed to the socket (the server then inserts it on its own), `done` when
+ * the server has answered.
+ */
+function loadChunk(conn: PoolConnection, tsv: Buffer, expected: number) {
+  let markSent!: () => void
+  const sent = new Promise<void>((resolve) => { markSent = resolve })
+  const done = conn.query({
+    sql: LOAD_RESULTS,
+    infileStreamFactory: () => {
+      const stream = Readable.from([tsv])
+      stream.once('end', () => markSent())
+      return stream
+    },
+  } as Parameters<PoolConnection['query']>[0]).then(([header]) => {
+    const h = header as ResultSetHeader
+    if (h.affectedRows !== expected || h.warningStatus !== 0) {
+      throw new Error(`storing case results: ${h.affectedRows} of ${expected} rows went in, with ${h.warningStatus} warning(s)`)
+    }
+  })
+  done.catch(() => markSent())
+  return { sent, done }
 }
 
 export interface StoreInput {
@@ -39,49 +80,71 @@ export interface StoreInput {
   tokenId: number | null
 }
 
-export async function storeRun(input: StoreInput): Promise<number> {
-  const db = useDb()
-  const { summary, results } = input.judged
+export async function storeRun(input: StoreInput): Promise<{ id: number, counts: Record<string, number> }> {
+  const conn = await usePool().getConnection()
+  const tx = drizzle({ client: conn, schema, mode: 'default' })
   const clock = stepClock()
-  return db.transaction(async (tx) => {
+  await conn.beginTransaction()
+  try {
     let versionId = input.versionId
     if (!versionId) {
       const [v] = await tx.insert(schema.versions).values({ codeId: input.codeId, label: input.versionLabel, commitId: input.commit ?? '', environment: input.environment ?? {} }).$returningId()
       versionId = v!.id
       await recordAudit(tx, input.actor, 'create-version', 'version', versionId, { label: input.versionLabel })
     }
-    const { regions, ...overall } = summary
+    // counts and figures are filled in once every case is judged, in this same transaction
     const [run] = await tx.insert(schema.runs).values({
       versionId, setId: input.set.id,
       submittedBy: input.actor.id, tokenId: input.tokenId,
       fileName: input.fileName.slice(0, 255), fileSha256: input.sha, fileSize: input.data.length,
-      columnMapping: input.mapping, counts: overall.counts,
-      maxRelError: overall.maxRelError, medianRelError: overall.medianRelError, rmsRelError: overall.rmsRelError, maxUlps: overall.maxUlps,
-      regions: { overall: { ...overall, worst: null }, regions: Object.fromEntries(Object.entries(regions).map(([k, f]) => [k, { ...f, worst: null }])) },
+      columnMapping: input.mapping, counts: {}, regions: {},
     }).$returningId()
     const runId = run!.id
     await tx.insert(schema.runFiles).values({ runId, content: input.data })
     clock('store: run row and file')
-    let formatMs = 0
-    for (let i = 0; i < results.length; i += BATCH) {
-      const t = performance.now()
-      const statement = resultsInsert(runId, results.slice(i, i + BATCH))
-      formatMs += performance.now() - t
-      await tx.execute(sql.raw(statement))
+
+    let inFlight: Promise<void> = Promise.resolve()
+    let step = input.judged.chunks.next()
+    for (; !step.done; step = input.judged.chunks.next()) {
+      const tsv = resultsTsv(runId, step.value)
+      await inFlight
+      const chunk = loadChunk(conn, tsv, step.value.length)
+      inFlight = chunk.done
+      // once the chunk is on its way, judge the next one while the server inserts this one
+      await chunk.sent
     }
-    clock(`store: case results (${formatMs.toFixed(0)} ms of it building the statements)`)
-    const worst = overall.worst ? results[overall.worst.index] : undefined
+    await inFlight
+    clock('store: judge and load case results')
+
+    const { summary, worst } = step.value
+    const { regions, ...overall } = summary
+    let worstCaseId: number | null = null
     if (worst) {
       const [w] = await tx.select({ id: schema.caseResults.id }).from(schema.caseResults).where(and(
         eq(schema.caseResults.runId, runId),
         worst.caseId ? eq(schema.caseResults.caseId, worst.caseId) : isNull(schema.caseResults.caseId),
         worst.lineNumber ? eq(schema.caseResults.lineNumber, worst.lineNumber) : isNull(schema.caseResults.lineNumber),
       )).limit(1)
-      if (w) await tx.update(schema.runs).set({ worstCaseId: w.id }).where(eq(schema.runs.id, runId))
+      worstCaseId = w?.id ?? null
     }
+    await tx.update(schema.runs).set({
+      counts: overall.counts,
+      maxRelError: overall.maxRelError, medianRelError: overall.medianRelError, rmsRelError: overall.rmsRelError, maxUlps: overall.maxUlps,
+      regions: { overall: { ...overall, worst: null }, regions: Object.fromEntries(Object.entries(regions).map(([k, f]) => [k, { ...f, worst: null }])) },
+      worstCaseId,
+    }).where(eq(schema.runs.id, runId))
     await tx.update(schema.referenceSets).set({ frozenAt: new Date() }).where(and(eq(schema.referenceSets.id, input.set.id), isNull(schema.referenceSets.frozenAt)))
-    clock('store: worst case and freeze')
+    clock('store: figures, worst case and freeze')
     await recordAudit(tx, input.actor, 'submit-run', 'run', runId, { versionId, setId: input.set.id, sha256: input.sha, counts: overall.counts })
-    return runId
-  })
+    await conn.commit()
+    clock('store: commit')
+    return { id: runId, counts: overall.counts }
+  }
+  catch (e) {
+    await conn.rollback().catch(() => {})
+    throw e
+  }
+  finally {
+    conn.release()
+  }
 }

@@ -6,7 +6,7 @@ import { createHash } from 'node:crypto'
 import type { H3Event } from 'h3'
 import { and, asc, eq } from 'drizzle-orm'
 import { MAX_TABLE_BYTES, parseTable, type ParsedTable } from '../../shared/parse'
-import { judgeRun } from '../../shared/compare/run'
+import { judgeRunInChunks, type RunResult } from '../../shared/compare/run'
 import type { summarizeRun } from '../../shared/compare'
 import { CATALOGUE, isFunctionId } from '../../shared/reference'
 import { submissionSchema, type SubmissionFields } from '../../shared/schemas/submission'
@@ -91,16 +91,28 @@ export function resolveMapping(set: ReferenceSet, table: ParsedTable, mapping: R
   return { index, mapping: Object.fromEntries(Object.entries(index).map(([k, j]) => [k, table.columns[j]!])) }
 }
 
-export interface JudgedRun {
-  /** In the order of shared/compare/run.ts, so summary.worst.index points into it. */
-  results: Array<typeof schema.caseResults.$inferInsert>
-  summary: ReturnType<typeof summarizeRun>
-}
+type StoredResult = typeof schema.caseResults.$inferInsert
 
 const key = (s: string | null | undefined) => (s === null || s === undefined || s === '' ? null : Number(s))
 
+/**
+ * A run being judged: `chunks` hands out the rows to store, in the order of
+ * shared/compare/run.ts, a chunk at a time as they are judged, and returns
+ * the summary once all are. Storing one chunk while the next is judged keeps
+ * both cores busy (server/utils/run-store.ts).
+ */
+export interface JudgedRun {
+  chunks: Generator<StoredResult[], JudgedSummary>
+}
+
+export interface JudgedSummary {
+  summary: ReturnType<typeof summarizeRun>
+  /** The stored row of the summary's worst case, to find its id once stored. */
+  worst: StoredResult | null
+}
+
 /** Judge every case of the set against the table's rows (shared/compare/run.ts), as rows ready to store. */
-export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$inferSelect>, table: ParsedTable, index: Record<string, number>): JudgedRun {
+export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$inferSelect>, table: ParsedTable, index: Record<string, number>, chunkSize = 5000): JudgedRun {
   const params = Object.keys(index).filter(k => k !== 'value')
   const specs = isFunctionId(set.functionId) ? CATALOGUE[set.functionId].parameters : []
   const rows = table.rows.map((r) => {
@@ -115,9 +127,8 @@ export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$
     return { inputs, measured: f ? { raw: f.raw, kind: f.kind, value: f.value, sign: f.sign } : { raw: '', kind: 'empty' as const } }
   })
   const runCases = cases.map(c => ({ key: c.inputKey, inputs: c.inputs, region: c.region, reference: { value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' } }))
-  const { results, summary } = judgeRun(set.functionId, runCases, rows, set.criterion as Criterion)
   const lineOf = (rowIndex: number | null) => (rowIndex === null ? null : table.rows[rowIndex]!.line)
-  const stored = results.map((r) => {
+  const toStored = (r: RunResult): StoredResult => {
     const c = r.caseIndex === null ? null : cases[r.caseIndex]!
     const dup = /^duplicate-of-row:(\d+)$/.exec(r.decidedBy)
     return {
@@ -128,8 +139,18 @@ export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$
       region: r.region ?? null, relErrorKey: key(r.relError), absErrorKey: key(r.absError), ulpsKey: key(r.ulps),
       verdict: r.verdict, decidedBy: dup ? `repeats line ${lineOf(Number(dup[1]))}` : r.decidedBy.slice(0, 60),
     }
-  })
-  return { results: stored, summary }
+  }
+  function* chunks(): Generator<StoredResult[], JudgedSummary> {
+    const steps = judgeRunInChunks(set.functionId, runCases, rows, set.criterion as Criterion, chunkSize)
+    for (let step = steps.next(); ; step = steps.next()) {
+      if (step.done) {
+        const { results, summary } = step.value
+        return { summary, worst: summary.worst ? toStored(results[summary.worst.index]!) : null }
+      }
+      yield step.value.map(toStored)
+    }
+  }
+  return { chunks: chunks() }
 }
 
 export async function loadCases(setId: number) {

@@ -37,22 +37,44 @@ function blank(verdict: Verdict, decidedBy: string, caseIndex: number | null, ro
 
 /** Judge every case of a run and summarise it; see the file header for the order and the rules. */
 export function judgeRun(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion): { results: RunResult[]; summary: RunSummary } {
+  const steps = judgeRunInChunks(functionId, cases, rows, criterion)
+  for (let step = steps.next(); ; step = steps.next()) if (step.done) return step.value
+}
+
+/**
+ * The same judging, handed out in chunks of about `chunkSize` results as they
+ * are made, so a caller can store one chunk while the next is judged. Each
+ * yielded chunk continues the results array in order; the generator returns
+ * every result and the summary once all are judged.
+ */
+export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion, chunkSize = 5000): Generator<RunResult[], { results: RunResult[]; summary: RunSummary }> {
   const cc = compileCriterion(criterion)
   const m = matchRows(cases, rows, functionId)
   const results: RunResult[] = []
+  let handedOut = 0
+  const full = () => results.length - handedOut >= chunkSize
+  const take = () => results.slice(handedOut, (handedOut = results.length))
   let next = 0
   for (const i of m.missing) {
     // Interleave matched and missing cases back into case order.
-    while (next < m.matched.length && m.matched[next]!.caseIndex < i) pushMatched(m.matched[next++]!)
+    while (next < m.matched.length && m.matched[next]!.caseIndex < i) {
+      pushMatched(m.matched[next++]!)
+      if (full()) yield take()
+    }
     const cs = cases[i]!
     results.push(blank('missing', 'no-row', i, null, cs.key, null, cs.region))
+    if (full()) yield take()
   }
-  while (next < m.matched.length) pushMatched(m.matched[next++]!)
+  while (next < m.matched.length) {
+    pushMatched(m.matched[next++]!)
+    if (full()) yield take()
+  }
   for (const d of m.duplicate) {
     const cs = cases[d.caseIndex]!
     results.push(blank('duplicate', `duplicate-of-row:${d.firstRowIndex}`, d.caseIndex, d.rowIndex, cs.key, rows[d.rowIndex]!.measured.raw, cs.region))
   }
   for (const u of m.unexpected) results.push(blank('unexpected', u.key === null ? 'unreadable-inputs' : 'no-case', null, u.rowIndex, u.key, rows[u.rowIndex]!.measured.raw))
+  if (results.length > handedOut) yield take()
   return { results, summary: summarizeRun(results) }
 
   function pushMatched({ caseIndex, rowIndex }: { caseIndex: number; rowIndex: number }): void {

@@ -25,13 +25,12 @@ export default defineEventHandler(async (event) => {
   const cases = await loadCases(set.id)
   clock('load cases')
   const judged = judgeTable(set, cases, table, index)
-  clock('match and judge')
   const actor = user ?? { id: null, email: `token:${token!.prefix}` }
-  const runId = await storeRun({
+  const stored = await storeRun({
     set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment,
     fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: token?.id ?? null,
   })
-  clock('store')
+  clock('judge and store')
   setResponseStatus(event, 201)
-  return { run: { id: runId, counts: judged.summary.counts }, duplicate: false }
+  return { run: stored, duplicate: false }
 })

@@ -4,7 +4,7 @@
  * missing, one written twice, one extra and one NaN).
  */
 import { describe, expect, it } from 'vitest'
-import { judgeRun } from '../../../shared/compare/run'
+import { judgeRun, judgeRunInChunks } from '../../../shared/compare/run'
 import { expandReferenceSet } from '../../../shared/grid/index'
 import { cell, crit } from './support'
 
@@ -44,5 +44,19 @@ describe('judgeRun', () => {
     expect(summary.worst).toMatchObject({ key: 'n=3;x=1', verdict: 'non_finite' })
     expect(Object.keys(summary.regions).sort()).toEqual(['all', 'wide'])
     expect(summary.regions.wide!.counts.pass).toBe(1)
+  })
+})
+
+describe('judgeRunInChunks', () => {
+  it('hands out the same results in order, in chunks of the asked size, and returns the same summary', () => {
+    const whole = judgeRun('hermite', cases, rows, criterion)
+    const steps = judgeRunInChunks('hermite', cases, rows, criterion, 2)
+    const chunks: unknown[][] = []
+    let step = steps.next()
+    for (; !step.done; step = steps.next()) chunks.push(step.value)
+    expect(chunks.map(c => c.length)).toEqual([2, 2, 3])
+    expect(chunks.flat()).toEqual(whole.results)
+    expect(step.value.results).toEqual(whole.results)
+    expect(step.value.summary).toEqual(whole.summary)
   })
 })
