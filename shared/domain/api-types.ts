@@ -108,6 +108,11 @@ export interface ErrorMapPoint {
   log10: number | null
   verdict: Verdict
   caseId: number
+  /** Binned maps only: how many cases the cell holds, how many of them fail, and the inputs of the worst one (which the cell shows). */
+  cases?: number
+  failing?: number
+  caseX?: number
+  caseY?: number
 }
 
 export interface ErrorMap {
@@ -115,4 +120,6 @@ export interface ErrorMap {
   yParam: string | null
   metric: 'ulps' | 'relative'
   points: ErrorMapPoint[]
+  /** Set when the run had too many cases to draw one by one: each point is then a cell of a regular grid, showing its worst case. */
+  binned?: { cases: number, columns: number, rows: number }
 }

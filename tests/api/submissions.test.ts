@@ -203,6 +203,30 @@ describe('submissions', () => {
     expect(one.body.total).toBe(1)
     expect(one.body.rows[0].id).toBe(map.points[3].caseId)
   })
+
+  it('bins the map of a large run into a grid whose cells show their worst case', async () => {
+    // 9 × 1000 = 9,000 cases, past the 8,000 a map draws one by one
+    const big = await readySet(qa, hermiteSet(unique('map-big'), { grid: { parts: [{ kind: 'range', axes: [{ param: 'n', start: '0', stop: '8', step: '1' }, { param: 'x', start: '-5', stop: '4.99', step: '0.01' }] }] } }))
+    const rows: string[] = ['n,x,H']
+    for (let n = 0; n <= 8; n++) {
+      for (let i = -500; i < 500; i++) {
+        const x = (i / 100).toString()
+        // one planted miss, far outside any tolerance
+        const v = n === 7 && i === 123 ? hermiteDouble(n, i / 100) * 1.01 : hermiteDouble(n, i / 100)
+        rows.push(`${n},${x},${v.toPrecision(17)}`)
+      }
+    }
+    const r = await upload(qa, '/api/runs', { code: 'oscillite', version: unique('map-big'), setId: String(big.id), mapping: JSON.stringify({ n: 'n', x: 'x', value: 'H' }) }, { name: 'big.csv', content: rows.join('\n') + '\n' })
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+    const map = (await viewer.get(`/api/runs/${r.body.run.id}/map`)).body
+    expect(map.binned).toMatchObject({ cases: 9000, rows: 9 })
+    expect(map.points.length).toBeLessThanOrEqual(map.binned.columns * map.binned.rows)
+    expect(map.points.reduce((s: number, p: { cases: number }) => s + p.cases, 0)).toBe(9000)
+    const planted = map.points.filter((p: { verdict: string }) => p.verdict === 'fail').find((p: { caseX: number, caseY: number }) => p.caseX === 1.23 && p.caseY === 7)
+    expect(planted, 'the planted miss shows in its cell').toBeDefined()
+    const one = await viewer.get(`/api/runs/${r.body.run.id}/cases?caseId=${planted.caseId}`)
+    expect(one.body.rows[0]).toMatchObject({ verdict: 'fail' })
+  })
 })
 
 describe('CI tokens on the submission route', () => {

@@ -1,6 +1,7 @@
 import { eq, isNotNull, and } from 'drizzle-orm'
 import { idParamSchema } from '../../../../shared/schemas/auth'
 import type { ErrorMap } from '../../../../shared/domain/api-types'
+import { binErrorMap } from '../../../../shared/domain/error-map'
 
 // Points for the error map: the set's first two numeric parameters as axes,
 // log10 of the ULP distance (or of the relative error when no ULPs exist).
@@ -16,7 +17,8 @@ export default defineEventHandler(async (event): Promise<ErrorMap> => {
   const yParam = params.find(p => p !== xParam) ?? null
   const metric = rows.some(row => row.ulps !== null) ? 'ulps' : 'relative'
   const log = (v: number | null) => (v === null ? null : v <= 0 ? -Infinity : Math.log10(v))
-  return {
+  // past MAP_CELL_LIMIT cases the map comes binned: each grid cell shows its worst case
+  return binErrorMap({
     xParam,
     yParam,
     metric,
@@ -30,5 +32,5 @@ export default defineEventHandler(async (event): Promise<ErrorMap> => {
       verdict: row.verdict,
       caseId: row.id,
     })),
-  }
+  })
 })
