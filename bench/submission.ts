@@ -75,12 +75,25 @@ try {
   const s0 = performance.now()
   const res = await fetch(`${BASE}/api/runs`, { method: 'POST', headers, body: form })
   const submitMs = performance.now() - s0
-  const body = await res.json() as { run?: { counts: Record<string, number> }, message?: string }
+  const body = await res.json() as { run?: { id: number, counts: Record<string, number> }, message?: string }
   if (res.status !== 201) throw new Error(`submission failed: ${res.status} ${body.message}`)
+
+  // what the code owner opens next: the error map (binned past 8,000 cases) and the worst page of the case table
+  const timed = async (path: string) => {
+    const t = performance.now()
+    const r = await fetch(`${BASE}${path}`, { headers })
+    const bytes = (await r.arrayBuffer()).byteLength
+    if (!r.ok) throw new Error(`${path}: ${r.status}`)
+    return { ms: performance.now() - t, bytes }
+  }
+  const mapRead = await timed(`/api/runs/${body.run!.id}/map`)
+  const pageRead = await timed(`/api/runs/${body.run!.id}/cases?verdict=fail&sort=relError&dir=desc&page=1&pageSize=50`)
 
   console.log('workload                                        time        peak RSS   ratio to plain read')
   console.log(`(d) reference set, 100,000 cases (worker)     ${setSeconds.toFixed(1).padStart(6)} s`)
   console.log(`(e) submit 100,000 rows: parse, judge, store  ${(submitMs / 1000).toFixed(2).padStart(6)} s   ${peakRss(server.pid!).toFixed(0).padStart(5)} MB   ${(submitMs / plainMs).toFixed(0)}× (plain read ${plainMs.toFixed(0)} ms, ${fields} fields)`)
+  console.log(`(f) error map of that run                      ${(mapRead.ms / 1000).toFixed(2).padStart(6)} s   ${(mapRead.bytes / 1024).toFixed(0)} KB of JSON`)
+  console.log(`(g) worst 50 failures, case table page          ${(pageRead.ms / 1000).toFixed(2).padStart(6)} s`)
   console.log(`    targets: (e) under 5 s and under 600 MB peak RSS; counts ${JSON.stringify(body.run!.counts)}`)
 }
 finally {

@@ -152,7 +152,7 @@ describe('submit a table and read the run', () => {
     await page.close()
   })
 
-  it('the same file for the same version and set is recognised, not judged twice', async () => {
+  it('the same file, dropped on the zone, for the same version and set is recognised, not judged twice', async () => {
     expect(runPath).toMatch(/^\/runs\/\d+$/)
     const page = await browser.context.newPage()
     await page.goto('/submit')
@@ -160,7 +160,16 @@ describe('submit a table and read the run', () => {
     await page.getByLabel('an existing version').check()
     await page.getByLabel('Which existing version').selectOption(versionLabel)
     await page.getByLabel('Reference set').selectOption(String(setId))
-    await page.getByTestId('file-input').setInputFiles({ name: 'oscillite-hermite.csv', mimeType: 'text/csv', buffer: Buffer.from(outputTable()) })
+    // this time the file is dragged onto the drop zone rather than picked
+    const dropped = await page.evaluateHandle((text) => {
+      const dt = new DataTransfer()
+      dt.items.add(new File([text], 'oscillite-hermite.csv', { type: 'text/csv' }))
+      return dt
+    }, outputTable())
+    const zone = page.getByTestId('drop-zone')
+    await zone.dispatchEvent('dragenter', { dataTransfer: dropped })
+    await zone.dispatchEvent('dragover', { dataTransfer: dropped })
+    await zone.dispatchEvent('drop', { dataTransfer: dropped })
     await page.getByTestId('mapping-preview').waitFor()
     await page.getByTestId('judge').click()
     const dup = page.getByTestId('judge-duplicate')
