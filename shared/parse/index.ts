@@ -6,7 +6,7 @@
 export { parseTable } from './table'
 export { parseNumber, isNumericKind } from './number'
 export { suggestColumnMapping, type ColumnMapping } from './mapping'
-export { MAX_TABLE_BYTES, MAX_LISTED_ERRORS } from './types'
+export { MAX_TABLE_BYTES, MAX_TABLE_ROWS, MAX_LISTED_ERRORS } from './types'
 export type {
   Field, FieldKind, IssueKind, NumberReading, ParseIssue, ParseOptions, ParsedTable, Row, TableFormat, TextEncoding,
 } from './types'

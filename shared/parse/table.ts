@@ -10,7 +10,7 @@ import { JsonSyntaxError, readJson } from './json-reader'
 import { jsonToTable } from './json-table'
 import { isNumericKind, parseNumber } from './number'
 import {
-  MAX_LISTED_ERRORS, MAX_TABLE_BYTES,
+  MAX_LISTED_ERRORS, MAX_TABLE_BYTES, MAX_TABLE_ROWS,
   type Field, type ParseIssue, type ParseOptions, type ParsedTable, type Row, type TableFormat,
 } from './types'
 
@@ -39,6 +39,12 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
   }
   const decoded = decodeTable(bytes)
   const base = { encoding: decoded.encoding, bom: decoded.bom }
+  const tooMany = (count: number, what: 'lines' | 'rows') => ({
+    format: 'unknown' as const, delimiter: '', ...base, ...empty, errorCount: 1,
+    errors: [{ kind: 'too-large' as const, line: 0, column: 0, message: `the table has ${count.toLocaleString('en')} ${what}; the limit is ${MAX_TABLE_ROWS.toLocaleString('en')} rows, twice the largest reference set. Split the table by reference set` }],
+  })
+  const lines = lineCount(decoded.text)
+  if (lines > MAX_TABLE_ROWS + 1000) return tooMany(lines, 'lines') // room for header and comment lines
   const early: ParseIssue[] = []
   if (decoded.problem) early.push({ kind: 'encoding', line: 0, column: 0, message: decoded.problem })
 
@@ -49,6 +55,7 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
   if (detected.format === 'json') {
     try {
       const t = jsonToTable(readJson(decoded.text), options.header)
+      if (t.records.length > MAX_TABLE_ROWS) return tooMany(t.records.length, 'rows')
       names = t.columns
       records = t.records
       early.push(...t.issues)
@@ -98,6 +105,15 @@ export function parseTable(bytes: Uint8Array, options: ParseOptions = {}): Parse
   early.sort(byPosition)
   const merged = [...early.slice(0, MAX_LISTED_ERRORS), ...issues.listed].sort(byPosition).slice(0, MAX_LISTED_ERRORS)
   return { format, delimiter, ...base, headerFound, columns, numeric, rows: records, errors: merged, errorCount: early.length + issues.count }
+}
+
+/** Lines in the text, whichever line end it uses (LF, CRLF or a lone CR). */
+function lineCount(text: string): number {
+  let lf = 0
+  let cr = 0
+  for (let i = text.indexOf('\n'); i !== -1; i = text.indexOf('\n', i + 1)) lf++
+  if (lf === 0) for (let i = text.indexOf('\r'); i !== -1; i = text.indexOf('\r', i + 1)) cr++
+  return Math.max(lf, cr) + 1
 }
 
 /**

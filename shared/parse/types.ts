@@ -4,6 +4,8 @@
 
 /** Uploads larger than this are refused before decoding (the server answers 413). */
 export const MAX_TABLE_BYTES = 50 * 1024 * 1024
+/** Twice the largest reference set (shared/schemas/reference-set.ts MAX_CASES): more rows than this cannot be an honest table, and would cost the server memory for nothing. */
+export const MAX_TABLE_ROWS = 400_000
 
 /** At most this many issues are listed; `errorCount` still counts them all. */
 export const MAX_LISTED_ERRORS = 50

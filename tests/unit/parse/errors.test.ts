@@ -4,7 +4,7 @@
  * over MAX_TABLE_BYTES are refused with their own kind.
  */
 import { describe, it, expect } from 'vitest'
-import { MAX_LISTED_ERRORS, MAX_TABLE_BYTES, parseTable } from '../../../shared/parse/index'
+import { MAX_LISTED_ERRORS, MAX_TABLE_BYTES, MAX_TABLE_ROWS, parseTable } from '../../../shared/parse/index'
 import { table, utf8 } from './support'
 
 describe('errors with line and column', () => {
@@ -82,6 +82,29 @@ describe('the cap of listed errors', () => {
     expect(j.errorCount).toBe(70)
     expect(j.errors).toHaveLength(50)
     expect(j.errors[0]).toMatchObject({ kind: 'syntax', line: 1, column: 13, field: 'H' })
+  })
+})
+
+describe('row limit', () => {
+  it('refuses a table of more rows than twice the largest reference set, before building rows', () => {
+    // 8 bytes a row: 500,000 rows are only 4 MB, far under the byte limit
+    const rows = 'n,x,H\n' + '1,0.5,1\n'.repeat(500_000)
+    const t = parseTable(utf8(rows))
+    expect(t.errors).toEqual([expect.objectContaining({ kind: 'too-large' })])
+    expect(t.errors[0]!.message).toContain('the limit is 400,000')
+    expect(t.rows).toEqual([])
+  })
+
+  it('counts lone CR line ends too, and JSON rows', () => {
+    expect(parseTable(utf8('n x H\r' + '1 0.5 1\r'.repeat(MAX_TABLE_ROWS + 2000))).errors[0]?.kind).toBe('too-large')
+    const json = JSON.stringify(Array.from({ length: MAX_TABLE_ROWS + 1 }, () => [1, 0.5, 1]))
+    expect(parseTable(utf8(json)).errors[0]?.kind).toBe('too-large')
+  })
+
+  it('reads a table at the limit', () => {
+    const t = parseTable(utf8('n,x,H\n' + '1,0.5,1\n'.repeat(MAX_TABLE_ROWS)))
+    expect(t.errorCount).toBe(0)
+    expect(t.rows).toHaveLength(MAX_TABLE_ROWS)
   })
 })
 
