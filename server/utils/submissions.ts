@@ -61,7 +61,8 @@ export function submissionFields(upload: Upload): SubmissionFields {
 /** Parse exactly; refuse the whole file if any row cannot be read (413 when too large). */
 export function parseUploadedTable(data: Uint8Array): ParsedTable {
   const table = parseTable(data)
-  if (table.errors.some(e => e.kind === 'too-large')) throw tooLarge()
+  const tooBig = table.errors.find(e => e.kind === 'too-large')
+  if (tooBig) throw httpError(413, 'too_large', `The table was refused: ${tooBig.message}.`)
   if (table.errorCount > 0) {
     const errors = table.errors.map(e => ({ line: e.line, column: e.column, field: e.field, message: e.message }))
     throw httpError(400, 'unreadable_rows', `The table was refused: ${table.errorCount} problem${table.errorCount === 1 ? '' : 's'}, first at line ${errors[0]?.line}: ${errors[0]?.message}`, { errors, errorCount: table.errorCount })
