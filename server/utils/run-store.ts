@@ -6,6 +6,7 @@ import mysql from 'mysql2'
 import type { BuildEnvironment, ReferenceSet } from '../database/schema'
 import type { JudgedRun } from './submissions'
 import type { CurrentUser } from './auth'
+import { queueRunFailureNoticeWithRun } from '../mail/notifications'
 
 const BATCH = 5000
 
@@ -82,6 +83,7 @@ export async function storeRun(input: StoreInput): Promise<number> {
     await tx.update(schema.referenceSets).set({ frozenAt: new Date() }).where(and(eq(schema.referenceSets.id, input.set.id), isNull(schema.referenceSets.frozenAt)))
     clock('store: worst case and freeze')
     await recordAudit(tx, input.actor, 'submit-run', 'run', runId, { versionId, setId: input.set.id, sha256: input.sha, counts: overall.counts })
+    await queueRunFailureNoticeWithRun(tx, runId)
     return runId
   })
 }
