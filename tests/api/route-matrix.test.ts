@@ -14,6 +14,7 @@ const ALL = ROLES
 // gets a 400 and nothing changes; roles are checked before validation.
 const ROUTES: Route[] = [
   { method: 'GET', path: '/api/health', file: 'health.get.ts', roles: 'public', okStatus: [200] },
+  { method: 'GET', path: '/api/openapi.json', file: 'openapi.json.get.ts', roles: 'public', okStatus: [200] },
   { method: 'POST', path: '/api/auth/login', file: 'auth/login.post.ts', roles: 'public', body: {}, okStatus: [400] },
   { method: 'POST', path: '/api/auth/forgot-password', file: 'auth/forgot-password.post.ts', roles: 'public', body: {}, okStatus: [400] },
   { method: 'POST', path: '/api/auth/link', file: 'auth/link.post.ts', roles: 'public', body: {}, okStatus: [400] },
