@@ -20,7 +20,7 @@ export async function queueInvitation(db: Writer, user: { id: number, email: str
   return queueMail(db, compose('invitation', user.email, 'Your Plumbline account: choose a password', {
     greeting: `Hello ${user.name},`,
     paragraphs: [
-      `${invitedBy.name} has made you an account on Plumbline, the registry where numerical codes are verified against certified reference values. Your role is ${user.role} (${ROLE_LABELS[user.role]}).`,
+      `${invitedBy.name} has made you an account on Plumbline, the registry where numerical codes are verified against certified reference values. Your role is ${user.role}: ${ROLE_LABELS[user.role]}.`,
       `Choose your password with the link below. It works once, until ${when(expiresAt)}; after that an administrator can send a new one.`,
     ],
     action: { label: 'Choose your password', url },
