@@ -46,6 +46,18 @@ export default defineNuxtConfig({
     esbuild: { target: 'es2022' },
     optimizeDeps: { esbuildOptions: { target: 'es2022' } },
   },
+  // The API's own route table (method and path of every handler under /api),
+  // so unknown routes can be told apart from wrong methods (404 vs 405).
+  hooks: {
+    'nitro:init'(nitro) {
+      nitro.options.virtual['#plumbline/api-routes'] = () => {
+        const routes = [...nitro.scannedHandlers, ...nitro.options.handlers]
+          .filter(h => h.route?.startsWith('/api/') && !h.middleware && !h.route.includes('**'))
+          .map(h => ({ route: h.route!, method: (h.method ?? 'all').toUpperCase() }))
+        return `export default ${JSON.stringify(routes)}`
+      }
+    },
+  },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },
 })

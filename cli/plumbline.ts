@@ -1,13 +1,17 @@
 /**
  * plumbline — the command-line client. A small dispatcher over subcommands:
  *   eval    certified reference values for a CSV of cases (cli/eval.ts)
- * Exit codes: 0 done, 1 internal failure, 2 bad input or usage.
+ *   submit  post an output table from CI and gate on its verdict (cli/submit.ts)
+ * Exit codes: eval: 0 done, 1 internal failure, 2 bad input or usage.
+ * submit: 0 all pass, 1 some case fails, 2 bad input or usage, 3 server or network error.
  */
 import { runEval } from './eval'
+import { ServerError, runSubmit } from './submit'
 import { UsageError } from './usage'
 
-const SUBCOMMANDS: Record<string, { run: (args: string[]) => Promise<number>; summary: string }> = {
-  eval: { run: runEval, summary: 'compute certified reference values (see: plumbline eval --help)' },
+const SUBCOMMANDS: Record<string, { run: (args: string[]) => Promise<number>; summary: string; internalExit: number }> = {
+  eval: { run: runEval, summary: 'compute certified reference values (see: plumbline eval --help)', internalExit: 1 },
+  submit: { run: runSubmit, summary: 'submit an output table from CI; exits 1 when a case fails (see: plumbline submit --help)', internalExit: 3 },
 }
 
 function help(): string {
@@ -26,15 +30,19 @@ async function main(argv: string[]): Promise<number> {
   return sub.run(rest)
 }
 
-main(process.argv.slice(2)).then(
+const argv = process.argv.slice(2)
+main(argv).then(
   (code) => { process.exitCode = code },
   (err: unknown) => {
     if (err instanceof UsageError) {
       process.stderr.write(`plumbline: ${err.message}\n`)
       process.exitCode = 2
+    } else if (err instanceof ServerError) {
+      process.stderr.write(`plumbline: ${err.message}\n`)
+      process.exitCode = 3
     } else {
       process.stderr.write(`plumbline: internal error: ${err instanceof Error ? err.stack ?? err.message : String(err)}\n`)
-      process.exitCode = 1
+      process.exitCode = SUBCOMMANDS[argv[0] ?? '']?.internalExit ?? 1
     }
   },
 )

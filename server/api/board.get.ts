@@ -11,12 +11,14 @@ const query = z.object({
 
 // Codes × versions × reference sets, one cell per set: the latest run decides it.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, ...ANY_ROLE)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read'] })
   const filter = validQuery(event, query)
   const db = useDb()
   const { codes, teams, versions, referenceSets: sets, runs, codeOwners } = schema
 
   const codeWhere = []
+  const ownCode = tokenCodeId(caller) // a read token sees its own code only
+  if (ownCode !== null) codeWhere.push(eq(codes.id, ownCode))
   if (filter.code) codeWhere.push(eq(codes.slug, filter.code))
   if (filter.owner) {
     const owned = db.select({ id: codeOwners.codeId }).from(codeOwners).where(eq(codeOwners.userId, filter.owner))

@@ -15,6 +15,7 @@ import type { BuildEnvironment, ReferenceSet } from '../database/schema'
 import type { JudgedRun } from './submissions'
 import type { CurrentUser } from './auth'
 import { LOAD_RESULTS, resultsTsv } from './load-data'
+import { queueRunFailureNotice } from '../mail/notifications'
 
 /**
  * Start loading one chunk. `sent` settles once the whole chunk has been
@@ -113,6 +114,17 @@ export async function storeRun(input: StoreInput): Promise<{ id: number, counts:
     await tx.update(schema.referenceSets).set({ frozenAt: new Date() }).where(and(eq(schema.referenceSets.id, input.set.id), isNull(schema.referenceSets.frozenAt)))
     clock('store: figures, worst case and freeze')
     await recordAudit(tx, input.actor, 'submit-run', 'run', runId, { versionId, setId: input.set.id, sha256: input.sha, counts: overall.counts })
+    // the failure notice to the code's owners is stored with the run, in a
+    // savepoint: a fault in composing it rolls back only the notice, never the run
+    await conn.query('SAVEPOINT failure_notice')
+    try {
+      await queueRunFailureNotice(tx, runId)
+      await conn.query('RELEASE SAVEPOINT failure_notice')
+    }
+    catch (e) {
+      await conn.query('ROLLBACK TO SAVEPOINT failure_notice')
+      console.error(`run ${runId}: the failure notice could not be queued: ${e instanceof Error ? e.message : String(e)}`)
+    }
     await conn.commit()
     clock('store: commit')
     return { id: runId, counts: overall.counts }

@@ -27,7 +27,8 @@ export const createUserSchema = z.object({
   email: emailSchema,
   name: z.string().trim().min(1, { error: 'Enter a name.' }).max(120),
   role: z.enum(ROLES, { error: 'Choose one of: admin, qa, owner, viewer.' }),
-  password: passwordSchema,
+  /** Leave out to invite by e-mail (the usual way); a scripted setup may still give a first password. */
+  password: passwordSchema.optional(),
 })
 export type CreateUserInput = z.infer<typeof createUserSchema>
 
@@ -41,3 +42,13 @@ export type UpdateUserInput = z.infer<typeof updateUserSchema>
 export const idParamSchema = z.object({
   id: z.coerce.number().int().positive({ error: 'The id must be a positive whole number.' }),
 })
+
+export const forgotPasswordSchema = z.object({ email: emailSchema })
+
+/** The secret from a set-password link (invitation or reset). */
+export const linkTokenSchema = z.object({
+  token: z.string().regex(/^[\w-]{20,100}$/, { error: 'This link is incomplete: open it again from the message, whole.' }),
+})
+
+export const setPasswordSchema = linkTokenSchema.extend({ password: passwordSchema })
+export type SetPasswordInput = z.infer<typeof setPasswordSchema>

@@ -12,6 +12,8 @@ const PAGES = [
   { path: '/reference-sets', name: 'reference-sets', heading: 'Reference sets' },
   { path: '/submit', name: 'submit', heading: 'Submit an output table' },
   { path: '/admin', name: 'admin', heading: 'Admin' },
+  { path: '/admin/outbox', name: 'outbox', heading: 'Mail outbox' },
+  { path: '/api', name: 'api', heading: 'API' },
   { path: '/account', name: 'account', heading: 'Account' },
 ]
 

@@ -1,7 +1,8 @@
 import { asc, count, eq } from 'drizzle-orm'
 
 export default defineEventHandler(async (event) => {
-  await requireRole(event, ...ANY_ROLE)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read'] })
+  const ownCode = tokenCodeId(caller)
   const db = useDb()
   const { codes, teams, versions } = schema
   const rows = await db
@@ -9,6 +10,7 @@ export default defineEventHandler(async (event) => {
     .from(codes)
     .innerJoin(teams, eq(teams.id, codes.teamId))
     .leftJoin(versions, eq(versions.codeId, codes.id))
+    .where(ownCode === null ? undefined : eq(codes.id, ownCode))
     .groupBy(codes.id, teams.name)
     .orderBy(asc(teams.name), asc(codes.name))
   const owners = await db

@@ -1,7 +1,8 @@
 import { idParamSchema } from '../../../shared/schemas/auth'
 
 export default defineEventHandler(async (event) => {
-  await requireRole(event, ...ANY_ROLE)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read', 'submit'] })
   const { id } = validParams(event, idParamSchema)
+  await requireRunAccess(caller, id)
   return { run: await loadRun(id) }
 })

@@ -3,12 +3,11 @@ import { suggestColumnMapping } from '../../../shared/parse'
 // Submit one output table for one version against one reference set: from a
 // signed-in qa/admin, or from CI with a per-code token of scope `submit`.
 export default defineEventHandler(async (event) => {
-  const viaToken = bearerToken(event) !== null
-  const user = viaToken ? null : await requireRole(event, 'qa', 'admin')
+  const caller = await requireAccess(event, { roles: ['qa', 'admin'], scopes: ['submit'] })
   const upload = await readUpload(event)
   const fields = submissionFields(upload)
   const code = await findCode(fields.code)
-  const token = viaToken ? await requireCodeToken(event, code.id, 'submit') : null
+  requireCodeAccess(caller, code.id)
   const set = await loadSet(fields.setId)
   if (set.state !== 'ready') throw httpError(409, 'not_ready', `Reference set ${set.slug} r${set.revision} is ${set.state}; submit once it is ready.`)
 
@@ -25,10 +24,10 @@ export default defineEventHandler(async (event) => {
   const cases = await loadCases(set.id)
   clock('load cases')
   const judged = judgeTable(set, cases, table, index)
-  const actor = user ?? { id: null, email: `token:${token!.prefix}` }
+  const actor = caller.actor
   const stored = await storeRun({
     set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment,
-    fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: token?.id ?? null,
+    fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: caller.token?.id ?? null,
   })
   clock('judge and store')
   setResponseStatus(event, 201)

@@ -19,8 +19,9 @@ const query = z.object({
 
 // One page of a run's case results, sorted and filtered in the database.
 export default defineEventHandler(async (event): Promise<RunCasePage> => {
-  await requireRole(event, ...ANY_ROLE)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read', 'submit'] })
   const { id } = validParams(event, idParamSchema)
+  await requireRunAccess(caller, id)
   const q = validQuery(event, query)
   const db = useDb()
   const [exists] = await db.select({ id: schema.runs.id }).from(schema.runs).where(eq(schema.runs.id, id))

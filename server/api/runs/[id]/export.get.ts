@@ -7,8 +7,9 @@ const query = z.object({ format: z.enum(['csv', 'json'], { error: 'Choose csv or
 
 // The whole run: every case with its measured value as written, the reference, the error figures and the verdict.
 export default defineEventHandler(async (event) => {
-  await requireRole(event, ...ANY_ROLE)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read', 'submit'] })
   const { id } = validParams(event, idParamSchema)
+  await requireRunAccess(caller, id)
   const { format } = validQuery(event, query)
   const run = await loadRun(id)
   const r = schema.caseResults

@@ -6,8 +6,9 @@ import { binErrorMap } from '../../../../shared/domain/error-map'
 // Points for the error map: the set's first two numeric parameters as axes,
 // log10 of the ULP distance (or of the relative error when no ULPs exist).
 export default defineEventHandler(async (event): Promise<ErrorMap> => {
-  await requireRole(event, ...ANY_ROLE)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read', 'submit'] })
   const { id } = validParams(event, idParamSchema)
+  await requireRunAccess(caller, id)
   const run = await loadRun(id)
   const r = schema.caseResults
   const rows = await useDb().select({ id: r.id, inputs: schema.cases.inputs, ulps: r.ulpsKey, rel: r.relErrorKey, verdict: r.verdict })
