@@ -116,3 +116,30 @@ export interface ErrorMap {
   metric: 'ulps' | 'relative'
   points: ErrorMapPoint[]
 }
+
+export interface BoardCell {
+  set: string
+  state: CellState
+  /** The latest run that decided the cell; null when the version has none on this set. */
+  runId: number | null
+  failures: number
+  /** The latest run is worse than the previous version's (shared/domain/regression.ts). */
+  regression: boolean
+}
+
+export interface BoardCode {
+  id: number
+  slug: string
+  name: string
+  team: string
+  /** All versions of the code; `versions` may hold only the newest few. */
+  versionCount: number
+  versions: { id: number, label: string, commitId: string, cells: BoardCell[] }[]
+}
+
+export interface BoardReply {
+  sets: { slug: string, name: string, revision: number }[]
+  owners: { id: number, name: string }[]
+  codes: BoardCode[]
+  totals: Record<CellState, number>
+}
