@@ -23,6 +23,9 @@ const ROUTES: Route[] = [
   { method: 'PATCH', path: '/api/users/1', file: 'users/[id].patch.ts', roles: ['admin'], body: {}, okStatus: [400] },
   { method: 'GET', path: '/api/codes', file: 'codes/index.get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/codes/oscillite', file: 'codes/[slug].get.ts', roles: ALL, okStatus: [200] },
+  // no such versions: an allowed role gets past the role check to the 404
+  { method: 'GET', path: '/api/codes/oscillite/compare?from=none-a&to=none-b&set=none', file: 'codes/[slug]/compare.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/audit', file: 'audit/index.get.ts', roles: ['admin', 'viewer'], okStatus: [200] },
   { method: 'GET', path: '/api/reference-sets', file: 'reference-sets/index.get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/board', file: 'board.get.ts', roles: ALL, okStatus: [200] },
   { method: 'POST', path: '/api/reference-sets/preview', file: 'reference-sets/preview.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },

@@ -1,10 +1,14 @@
 import { eq } from 'drizzle-orm'
 import { z } from 'zod'
 import { sortVersions } from '../../../shared/domain/versions'
+import type { CodeDetail } from '../../../shared/domain/api-types'
 
 const params = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,64}$/, { error: 'A code slug is lower-case letters, digits and dashes.' }) })
 
-export default defineEventHandler(async (event) => {
+// One code: its owners, its versions in release order with their builds, the
+// worst and median error per reference set across versions, and where each
+// current failure began.
+export default defineEventHandler(async (event): Promise<CodeDetail> => {
   await requireRole(event, ...ANY_ROLE)
   const { slug } = validParams(event, params)
   const db = useDb()
@@ -15,11 +19,18 @@ export default defineEventHandler(async (event) => {
     .innerJoin(teams, eq(teams.id, codes.teamId))
     .where(eq(codes.slug, slug))
   if (!code) throw httpError(404, 'not_found', `There is no code "${slug}".`)
-  const list = await db.select().from(versions).where(eq(versions.codeId, code.id))
+  const list = sortVersions(await db.select().from(versions).where(eq(versions.codeId, code.id)))
   const owners = await db
     .select({ id: schema.users.id, name: schema.users.name, email: schema.users.email })
     .from(schema.codeOwners)
     .innerJoin(schema.users, eq(schema.users.id, schema.codeOwners.userId))
     .where(eq(schema.codeOwners.codeId, code.id))
-  return { code, owners, versions: sortVersions(list) }
+  const trend = await codeTrend(list)
+  return {
+    code,
+    owners,
+    versions: list.map(v => ({ id: v.id, label: v.label, commitId: v.commitId, environment: v.environment, createdAt: new Date(v.createdAt).toISOString() })),
+    trend,
+    failures: await currentFailures(list, trend),
+  }
 })
