@@ -31,7 +31,7 @@ function prng(seed: number) {
 
 async function bulk(db: Db, table: string, columns: string[], rows: unknown[][], batch = 2000) {
   for (let i = 0; i < rows.length; i += batch) {
-    await db.execute(sql.raw(mysql.format(`INSERT INTO ${table} (${columns.join(', ')}) VALUES ?`, [rows.slice(i, i + batch)])))
+    await db.execute(sql.raw(mysql.format(`INSERT INTO ${table} (${columns.join(', ')}) VALUES ?`, [rows.slice(i, i + batch) as mysql.SqlValue[][]])))
   }
 }
 
