@@ -11,6 +11,9 @@ const query = z.object({
   set: z.string().max(80).optional(),
   /** Only the newest N versions of each code (the page asks for a few; the full history is one filter away). */
   recent: z.coerce.number().int().min(1).max(1000).optional(),
+  /** Codes per page (all when left out); the totals always count every code. */
+  pageSize: z.coerce.number().int().min(1).max(200).optional(),
+  page: z.coerce.number().int().min(1).default(1),
 })
 
 // Codes × versions × reference sets, one cell per set: the latest run decides it.
@@ -69,19 +72,24 @@ export default defineEventHandler(async (event): Promise<BoardReply> => {
     return { set: slug, state, runId: run?.id ?? null, failures: counts ? failures(counts) : 0, regression: run?.isRegression ?? false }
   }
 
+  const all = codeRows.map(c => ({
+    ...c,
+    versionCount: byCode.get(c.id)?.length ?? 0,
+    versions: shown.get(c.id)!.map(v => ({
+      id: v.id,
+      label: v.label,
+      commitId: v.commitId,
+      cells: setList.map(s => cell(v.id, s.slug, s.revision)),
+    })),
+  }))
+  const size = filter.pageSize ?? Math.max(1, all.length)
   return {
     sets: setList,
     owners,
-    codes: codeRows.map(c => ({
-      ...c,
-      versionCount: byCode.get(c.id)?.length ?? 0,
-      versions: shown.get(c.id)!.map(v => ({
-        id: v.id,
-        label: v.label,
-        commitId: v.commitId,
-        cells: setList.map(s => cell(v.id, s.slug, s.revision)),
-      })),
-    })),
+    codes: all.slice((filter.page - 1) * size, filter.page * size),
+    codeTotal: all.length,
+    page: filter.page,
+    pageSize: size,
     totals,
   }
 })

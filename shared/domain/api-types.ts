@@ -141,6 +141,11 @@ export interface BoardReply {
   sets: { slug: string, name: string, revision: number }[]
   owners: { id: number, name: string }[]
   codes: BoardCode[]
+  /** Codes matching the filters, on every page. */
+  codeTotal: number
+  page: number
+  pageSize: number
+  /** Cells by state over every matching code (and only the newest versions when `recent` is given). */
   totals: Record<CellState, number>
 }
 

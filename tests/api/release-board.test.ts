@@ -124,6 +124,17 @@ describe('board states', () => {
     const full = (await viewer.get('/api/board?code=oscillite')).body
     expect(full.codes[0].versions.slice(-2).map((v: { id: number }) => v.id)).toEqual(board.codes[0].versions.map((v: { id: number }) => v.id))
   })
+
+  it('pages through codes while the totals count every code', async () => {
+    const all = (await viewer.get('/api/board')).body
+    const second = (await viewer.get('/api/board?pageSize=1&page=2')).body
+    expect(second.codes.map((c: { slug: string }) => c.slug)).toEqual([all.codes[1].slug])
+    expect(second.codeTotal).toBe(all.codes.length)
+    expect(second.totals).toEqual(all.totals)
+    const bad = await viewer.get('/api/board?page=0')
+    expect(bad.status).toBe(400)
+    expect(bad.body.data.issues[0].field).toBe('page')
+  })
 })
 
 describe('regression flag', () => {
