@@ -22,7 +22,7 @@ execFileSync('npx', ['tsx', 'scripts/migrate.ts'], { cwd: root, env, stdio: 'ign
 const seeded = execFileSync('npx', ['tsx', 'scripts/seed.ts', '--large'], { cwd: root, env, encoding: 'utf8' }).trim().split('\n').at(-1)
 if (!existsSync(join(root, '.output/server/index.mjs'))) execFileSync('npx', ['nuxt', 'build'], { cwd: root, stdio: ['ignore', 'ignore', 'inherit'] })
 
-const server = spawn('node', ['.output/server/index.mjs'], { cwd: root, env: { ...env, PORT: String(PORT), HOST: '127.0.0.1', NUXT_SESSION_PASSWORD: 'plumbline-bench-session-password-0123456789' }, stdio: ['ignore', 'ignore', 'inherit'] })
+const server = spawn('node', ['.output/server/index.mjs'], { cwd: root, env: { ...env, PORT: String(PORT), HOST: '127.0.0.1', NUXT_SESSION_PASSWORD: 'plumbline-bench-session-password-0123456789' }, stdio: ['ignore', 'inherit', 'inherit'] })
 const stop = () => server.kill('SIGKILL')
 process.on('exit', stop)
 

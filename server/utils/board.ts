@@ -19,14 +19,16 @@ const json = <T>(v: unknown): T => (typeof v === 'string' ? JSON.parse(v) as T :
 /** The latest run (highest id) per version × set slug, for the given versions; optionally one slug only. */
 export async function latestRuns(versionIds: number[], slug?: string): Promise<LatestRun[]> {
   if (!versionIds.length) return []
+  // the window runs over narrow rows only: a JSON (text) column in it would
+  // push MariaDB's temporary table to disk; counts join on afterwards by id
   const [rows] = await useDb().execute(sql`
-    SELECT id, version_id, slug, revision, counts, is_regression FROM (
-      SELECT r.id, r.version_id, s.slug, s.revision, r.counts, r.is_regression,
+    SELECT l.id, l.version_id, l.slug, l.revision, l.is_regression, runs.counts FROM (
+      SELECT r.id, r.version_id, s.slug, s.revision, r.is_regression,
              ROW_NUMBER() OVER (PARTITION BY r.version_id, s.slug ORDER BY r.id DESC) AS rn
       FROM runs r JOIN reference_sets s ON s.id = r.set_id
       WHERE r.version_id IN (${sql.join(versionIds.map(id => sql`${id}`), sql`, `)})
       ${slug ? sql`AND s.slug = ${slug}` : sql``}
-    ) latest WHERE rn = 1`) as unknown as [Array<Record<string, unknown>>]
+    ) l JOIN runs ON runs.id = l.id WHERE l.rn = 1`) as unknown as [Array<Record<string, unknown>>]
   return rows.map(r => ({
     id: Number(r.id), versionId: Number(r.version_id), slug: String(r.slug), revision: Number(r.revision),
     counts: json<Counts>(r.counts), isRegression: Boolean(r.is_regression),

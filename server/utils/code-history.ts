@@ -40,13 +40,15 @@ export async function codeTrend(versions: VersionRow[]): Promise<CodeTrendSeries
 }
 
 /**
- * Failures of the newest version that has runs, each with the first version
+ * Failures of one version (by default the newest that has runs), each with the first version
  * it appeared in: walk back through earlier versions' runs on the same slug
  * while the case (matched by its exact inputs) still fails. A version without
  * a run on the set is passed over; a run whose set lacks the case ends the walk.
  */
-export async function currentFailures(versions: VersionRow[], trend: CodeTrendSeries[]): Promise<CurrentFailures | null> {
-  const newest = [...versions].reverse().find(v => trend.some(s => s.points.some(p => p.versionId === v.id)))
+export async function currentFailures(versions: VersionRow[], trend: CodeTrendSeries[], atLabel?: string): Promise<CurrentFailures | null> {
+  const newest = atLabel
+    ? versions.find(v => v.label === atLabel)
+    : [...versions].reverse().find(v => trend.some(s => s.points.some(p => p.versionId === v.id)))
   if (!newest) return null
   const db = useDb()
   const r = schema.caseResults

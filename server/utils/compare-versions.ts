@@ -85,7 +85,7 @@ export async function compareCodeVersions(code: { id: number, slug: string, name
     worse: n(agg?.worse), better: n(agg?.better), onlyInTo: n(agg?.onlyInTo), onlyInFrom: n(gone?.n),
     fromMaxRelError: fr0.maxRelError, toMaxRelError: tr0.maxRelError,
   }
-  const short = (s: string | null) => (s === null ? '—' : Number(s).toExponential(1))
+  const short = (s: string | null) => (s === null ? '—' : Number(s) === 0 ? '0' : Number(s).toExponential(1))
   const line = `${code.name} ${q.to} against ${q.from} on ${set?.name ?? q.set}: ${summary.newlyFailing} newly failing, ${summary.fixed} fixed, ${summary.stillFailing} still failing`
     + `${summary.worse || summary.better ? `, ${summary.worse} worse and ${summary.better} better by more than ${WORSE_FACTOR}×` : ''}; worst relative error ${short(summary.fromMaxRelError)} → ${short(summary.toMaxRelError)}.`
   const key = (v: unknown) => (v === null || v === undefined ? null : Number(v))
@@ -105,7 +105,7 @@ export async function compareCodeVersions(code: { id: number, slug: string, name
         ordinal: n(r.ordinal), inputs: typeof r.inputs === 'string' ? JSON.parse(r.inputs) as Record<string, string> : r.inputs as Record<string, string> | null,
         fromVerdict: (r.from_verdict ?? null) as CompareRow['fromVerdict'], toVerdict: r.to_verdict as CompareRow['toVerdict'],
         fromRelError: (r.from_rel ?? null) as string | null, toRelError: (r.to_rel ?? null) as string | null,
-        change: ck === null || ck >= 1e299 ? null : ck, ratio: fk && tk !== null ? tk / fk : null, kind: r.kind as CompareRow['kind'],
+        change: ck === null || ck >= 1e299 ? null : ck, ratio: fk && tk ? tk / fk : null, kind: r.kind as CompareRow['kind'],
       }
     }),
   }

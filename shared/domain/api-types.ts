@@ -214,7 +214,7 @@ export interface CompareRow {
   toRelError: string | null
   /** toRelError − fromRelError, approximately (from the sort keys); positive is worse. */
   change: number | null
-  /** toRelError / fromRelError, approximately; null when either is missing or the older error is zero. */
+  /** toRelError / fromRelError, approximately; null when either is missing or zero. */
   ratio: number | null
   kind: 'newly-failing' | 'fixed' | 'still-failing' | 'worse' | 'better' | 'same' | 'new-case'
 }

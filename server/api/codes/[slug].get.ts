@@ -4,6 +4,8 @@ import { sortVersions } from '../../../shared/domain/versions'
 import type { CodeDetail } from '../../../shared/domain/api-types'
 
 const params = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,64}$/, { error: 'A code slug is lower-case letters, digits and dashes.' }) })
+/** `at`: list the failures of this version instead of the newest one with runs. */
+const query = z.object({ at: z.string().trim().min(1).max(100).optional() })
 
 // One code: its owners, its versions in release order with their builds, the
 // worst and median error per reference set across versions, and where each
@@ -11,6 +13,7 @@ const params = z.object({ slug: z.string().regex(/^[a-z0-9-]{1,64}$/, { error: '
 export default defineEventHandler(async (event): Promise<CodeDetail> => {
   await requireRole(event, ...ANY_ROLE)
   const { slug } = validParams(event, params)
+  const { at } = validQuery(event, query)
   const db = useDb()
   const { codes, teams, versions } = schema
   const [code] = await db
@@ -25,12 +28,13 @@ export default defineEventHandler(async (event): Promise<CodeDetail> => {
     .from(schema.codeOwners)
     .innerJoin(schema.users, eq(schema.users.id, schema.codeOwners.userId))
     .where(eq(schema.codeOwners.codeId, code.id))
+  if (at && !list.some(v => v.label === at)) throw httpError(404, 'not_found', `${code.name} has no version "${at}".`, { issues: [{ field: 'at', message: 'No such version.' }] })
   const trend = await codeTrend(list)
   return {
     code,
     owners,
     versions: list.map(v => ({ id: v.id, label: v.label, commitId: v.commitId, environment: v.environment, createdAt: new Date(v.createdAt).toISOString() })),
     trend,
-    failures: await currentFailures(list, trend),
+    failures: await currentFailures(list, trend, at),
   }
 })
