@@ -1,10 +1,13 @@
 // Demo seed: `npm run seed`. Idempotent: rows are found by their natural keys
 // and created only when missing; demo passwords are reset to the published ones.
+// `npm run seed -- --large` adds the invented 50 × 30 × 10 load scenario
+// (scripts/seed-large.ts) that the board benchmark reads.
 import { and, eq } from 'drizzle-orm'
 import { createDb, createPool, databaseUrl } from '../server/database/client'
 import * as s from '../server/database/schema'
 import { DEMO_CODES, DEMO_TEAMS, DEMO_TOKEN, DEMO_USERS } from '../server/database/seed/scenario'
 import { hashUserPassword, sha256 } from '../server/database/seed/hash'
+import { LOAD, seedLarge } from './seed-large'
 
 const pool = createPool(databaseUrl())
 const db = createDb(pool)
@@ -60,6 +63,11 @@ try {
     await tx.insert(s.auditLog).values({ actor: 'seed', action: 'seed-demo', objectType: 'registry', objectId: 'demo', detail: { users: DEMO_USERS.length, codes: DEMO_CODES.length } })
   })
   console.log(`demo data ready: ${DEMO_USERS.length} users, ${DEMO_TEAMS.length} teams, ${DEMO_CODES.length} codes`)
+  if (process.argv.includes('--large')) {
+    const [owner] = await db.select({ id: s.users.id }).from(s.users).where(eq(s.users.email, 'owner@corrie-point.test'))
+    const large = await db.transaction(tx => seedLarge(tx as unknown as typeof db, owner?.id ?? null))
+    console.log(large ? `load scenario ready: ${LOAD.codes} codes × ${LOAD.versions} versions × ${LOAD.sets} sets, ${large.runs} runs` : 'load scenario already present')
+  }
 }
 finally {
   await pool.end()

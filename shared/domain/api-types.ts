@@ -123,3 +123,154 @@ export interface ErrorMap {
   /** Set when the run had too many cases to draw one by one: each point is then a cell of a regular grid, showing its worst case. */
   binned?: { cases: number, columns: number, rows: number }
 }
+
+export interface BoardCell {
+  set: string
+  state: CellState
+  /** The latest run that decided the cell; null when the version has none on this set. */
+  runId: number | null
+  failures: number
+  /** The latest run is worse than the previous version's (shared/domain/regression.ts). */
+  regression: boolean
+}
+
+export interface BoardCode {
+  id: number
+  slug: string
+  name: string
+  team: string
+  /** All versions of the code; `versions` may hold only the newest few. */
+  versionCount: number
+  versions: { id: number, label: string, commitId: string, cells: BoardCell[] }[]
+}
+
+export interface BoardReply {
+  sets: { slug: string, name: string, revision: number }[]
+  owners: { id: number, name: string }[]
+  codes: BoardCode[]
+  /** Codes matching the filters, on every page. */
+  codeTotal: number
+  page: number
+  pageSize: number
+  /** Cells by state over every matching code (and only the newest versions when `recent` is given). */
+  totals: Record<CellState, number>
+}
+
+export interface CodeTrendPoint {
+  versionId: number
+  label: string
+  runId: number
+  /** The revision of the set the run was judged against. */
+  revision: number
+  state: CellState
+  failures: number
+  regression: boolean
+  maxRelError: string | null
+  medianRelError: string | null
+  maxUlps: string | null
+}
+
+/** One reference-set slug across a code's versions (versions without a run on it are left out). */
+export interface CodeTrendSeries {
+  slug: string
+  name: string
+  revision: number
+  points: CodeTrendPoint[]
+}
+
+export interface CurrentFailure {
+  resultId: number
+  inputs: Record<string, string> | null
+  verdict: Verdict
+  relError: string | null
+  ulps: string | null
+  /** The earliest version of the unbroken run of versions in which this case fails. */
+  firstVersion: string
+  firstRunId: number
+}
+
+export interface CurrentFailures {
+  version: string
+  versionId: number
+  sets: { slug: string, name: string, runId: number, total: number, cases: CurrentFailure[] }[]
+}
+
+export interface CodeVersion {
+  id: number
+  label: string
+  commitId: string
+  environment: { compiler?: string, flags?: string, platform?: string, floatFormat?: string, libraries?: Record<string, string> }
+  createdAt: string
+}
+
+export interface CodeDetail {
+  code: { id: number, slug: string, name: string, description: string, language: string, team: string }
+  owners: { id: number, name: string, email: string }[]
+  versions: CodeVersion[]
+  trend: CodeTrendSeries[]
+  failures: CurrentFailures | null
+}
+
+export interface CompareRow {
+  /** The case's ordinal in the newer run's set. */
+  ordinal: number
+  inputs: Record<string, string> | null
+  fromVerdict: Verdict | null
+  toVerdict: Verdict
+  fromRelError: string | null
+  toRelError: string | null
+  /** toRelError − fromRelError, approximately (from the sort keys); positive is worse. */
+  change: number | null
+  /** toRelError / fromRelError, approximately; null when either is missing or zero. */
+  ratio: number | null
+  kind: 'newly-failing' | 'fixed' | 'still-failing' | 'worse' | 'better' | 'same' | 'new-case'
+}
+
+export interface CompareSummary {
+  compared: number
+  newlyFailing: number
+  fixed: number
+  stillFailing: number
+  worse: number
+  better: number
+  /** Cases of the newer run's set that the older run's set does not have. */
+  onlyInTo: number
+  /** Cases of the older run's set that the newer run's set does not have. */
+  onlyInFrom: number
+  fromMaxRelError: string | null
+  toMaxRelError: string | null
+  line: string
+}
+
+export interface CompareReply {
+  code: { slug: string, name: string }
+  set: { slug: string, name: string }
+  from: { label: string, runId: number, revision: number }
+  to: { label: string, runId: number, revision: number }
+  rule: string
+  summary: CompareSummary
+  total: number
+  page: number
+  pageSize: number
+  rows: CompareRow[]
+}
+
+export interface AuditEntryRow {
+  id: number
+  at: string
+  /** The e-mail address (or CI token prefix) that acted, as recorded. */
+  actor: string
+  userName: string | null
+  action: string
+  objectType: string
+  objectId: string
+  detail: unknown
+}
+
+export interface AuditPage {
+  total: number
+  page: number
+  pageSize: number
+  objectTypes: string[]
+  rows: AuditEntryRow[]
+}

@@ -13,7 +13,7 @@ export const CELL_LABELS: Record<CellState, string> = {
 
 type Counts = Partial<Record<Verdict, number>>
 
-const FAILING: Verdict[] = ['fail', 'missing', 'unexpected', 'non_finite', 'duplicate']
+export const FAILING: Verdict[] = ['fail', 'missing', 'unexpected', 'non_finite', 'duplicate']
 
 export function failures(counts: Counts): number {
   return FAILING.reduce((s, v) => s + (counts[v] ?? 0), 0)

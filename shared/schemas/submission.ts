@@ -2,13 +2,21 @@ import { z } from 'zod'
 
 const label = z.string().trim().min(1, { error: 'Enter a version label.' }).max(100).regex(/^[\w.+\-~]+$/, { error: 'Use letters, digits and . + - _ ~ only.' })
 
-export const environmentSchema = z.object({
+/** Floating-point formats a build may compute in (IEEE 754 names where the standard has one). */
+export const FLOAT_FORMATS = ['binary16', 'bfloat16', 'binary32', 'binary64', 'x87-extended', 'double-double', 'binary128', 'other'] as const
+
+/** The build environment of a version, as sent with a submission. */
+export const environmentSchema = z.strictObject({
   compiler: z.string().trim().max(120).optional(),
   flags: z.string().trim().max(400).optional(),
   platform: z.string().trim().max(120).optional(),
-  floatFormat: z.string().trim().max(40).optional(),
-  libraries: z.record(z.string().max(80), z.string().max(80)).optional(),
-})
+  floatFormat: z.enum(FLOAT_FORMATS, { error: `Name the floating-point format: ${FLOAT_FORMATS.join(', ')}.` }).optional(),
+  libraries: z.record(
+    z.string().trim().min(1).max(80).regex(/^[\w.+\-/@]+$/, { error: 'A library name is letters, digits and . + - _ / @.' }),
+    z.string().trim().min(1).max(80),
+  ).refine(r => Object.keys(r).length <= 40, { error: 'List at most 40 libraries.' }).optional(),
+}, { error: 'Unknown field in the build environment; use compiler, flags, platform, floatFormat and libraries.' })
+export type Environment = z.infer<typeof environmentSchema>
 
 /** The fields that come with an uploaded table (multipart fields or a JSON body). */
 export const submissionSchema = z.object({

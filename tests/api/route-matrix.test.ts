@@ -32,6 +32,9 @@ const ROUTES: Route[] = [
   { method: 'GET', path: '/api/codes/oscillite/tokens', file: 'codes/[slug]/tokens.get.ts', roles: ['qa', 'admin'], okStatus: [200] },
   { method: 'POST', path: '/api/codes/oscillite/tokens', file: 'codes/[slug]/tokens.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
   { method: 'POST', path: '/api/tokens/999999/revoke', file: 'tokens/[id]/revoke.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [404] },
+  // no such versions: an allowed role gets past the role check to the 404
+  { method: 'GET', path: '/api/codes/oscillite/compare?from=none-a&to=none-b&set=none', file: 'codes/[slug]/compare.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/audit', file: 'audit/index.get.ts', roles: ['admin', 'viewer'], okStatus: [200] },
   { method: 'GET', path: '/api/reference-sets', file: 'reference-sets/index.get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/board', file: 'board.get.ts', roles: ALL, okStatus: [200] },
   { method: 'POST', path: '/api/reference-sets/preview', file: 'reference-sets/preview.post.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },

@@ -9,6 +9,8 @@ const PAGES = [
   { path: '/', name: 'board', heading: 'Board' },
   { path: '/codes', name: 'codes', heading: 'Codes' },
   { path: '/codes/oscillite', name: 'code', heading: 'Oscillite' },
+  { path: '/codes/oscillite/compare', name: 'compare', heading: 'Compare versions' },
+  { path: '/audit', name: 'audit', heading: 'Audit trail' },
   { path: '/reference-sets', name: 'reference-sets', heading: 'Reference sets' },
   { path: '/submit', name: 'submit', heading: 'Submit an output table' },
   { path: '/admin', name: 'admin', heading: 'Admin' },

@@ -21,10 +21,10 @@ describe('board cell state', () => {
 
 describe('navigation by role', () => {
   it.each([
-    ['admin', ['Board', 'Reference sets', 'Codes', 'Submit', 'Admin']],
+    ['admin', ['Board', 'Reference sets', 'Codes', 'Submit', 'Audit trail', 'Admin']],
     ['qa', ['Board', 'Reference sets', 'Codes', 'Submit']],
     ['owner', ['Board', 'Reference sets', 'Codes']],
-    ['viewer', ['Board', 'Reference sets', 'Codes']],
+    ['viewer', ['Board', 'Reference sets', 'Codes', 'Audit trail']],
   ] as const)('%s sees %j', (role, labels) => {
     expect(sectionsFor(role).map(s => s.label)).toEqual(labels)
   })
