@@ -48,11 +48,15 @@ export default defineEventHandler(async (event) => {
     if (!latestRun.has(key)) latestRun.set(key, run)
   }
 
+  // approved deviations turn the failures they cover into `accepted` (server/utils/deviations.ts)
+  const withDeviations = await countsWithDeviations([...latestRun.values()].map(run => ({ ...run, setSlug: revisionOf.get(run.setId)!.slug })))
+
   const cell = (versionId: number, slug: string, revision: number) => {
     const run = latestRun.get(`${versionId}:${slug}`)
-    const judged = run ? { revision: revisionOf.get(run.setId)!.revision, counts: run.counts } : null
+    const counts = run ? withDeviations.get(run.id) ?? run.counts : null
+    const judged = run ? { revision: revisionOf.get(run.setId)!.revision, counts: counts! } : null
     const state: CellState = cellState(judged, revision)
-    return { set: slug, state, runId: run?.id ?? null, failures: run ? failures(run.counts) : 0 }
+    return { set: slug, state, runId: run?.id ?? null, failures: counts ? failures(counts) : 0 }
   }
 
   return {

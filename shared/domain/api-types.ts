@@ -75,6 +75,21 @@ export interface RunDetail {
   regions: Record<string, RunFigures>
   worst: RunCaseRow | null
   isRegression: boolean
+  /** Counts as judged and stored, before any deviation accepted a failure. */
+  storedCounts: Record<Verdict, number>
+  /** Approved deviations that apply to this run, with how many failures each accepted. */
+  deviations: AppliedDeviation[]
+}
+
+export interface AppliedDeviation {
+  id: number
+  scope: 'case' | 'region' | 'set'
+  caseInputKey: string | null
+  region: string | null
+  reason: string
+  expiresAtVersion: string | null
+  expiresOn: string | null
+  accepted: number
 }
 
 export interface RunCaseRow {
@@ -90,8 +105,13 @@ export interface RunCaseRow {
   relError: string | null
   ulps: string | null
   digitsAgreed: string | null
+  /** The verdict as shown: `accepted` when an approved deviation covers a failure. */
   verdict: Verdict
   decidedBy: string
+  /** The verdict the run was judged with, as stored. */
+  storedVerdict: Verdict
+  /** The deviation that accepted this failure, if any. */
+  acceptedBy: number | null
 }
 
 export interface RunCasePage {
