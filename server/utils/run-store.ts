@@ -81,6 +81,7 @@ export async function storeRun(input: StoreInput): Promise<number> {
     }
     await tx.update(schema.referenceSets).set({ frozenAt: new Date() }).where(and(eq(schema.referenceSets.id, input.set.id), isNull(schema.referenceSets.frozenAt)))
     clock('store: worst case and freeze')
+    await supersedeSignOffs(tx, versionId, runId, input.actor)
     await recordAudit(tx, input.actor, 'submit-run', 'run', runId, { versionId, setId: input.set.id, sha256: input.sha, counts: overall.counts })
     return runId
   })
