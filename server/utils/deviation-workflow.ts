@@ -8,31 +8,9 @@ import { expiredByDate, standing, type DeviationState } from '../../shared/domai
 import type { ProposeDeviationInput } from '../../shared/schemas/deviation'
 import { inputKey } from '../../shared/grid/keys'
 import { DEFAULT_REGION } from '../../shared/compare/regions'
+import type { DeviationView } from '../../shared/domain/api-types'
 import type { Deviation } from '../database/schema'
 import type { CurrentUser } from './auth'
-
-export interface DeviationView {
-  id: number
-  code: { slug: string, name: string }
-  setSlug: string
-  scope: Deviation['scope']
-  caseInputKey: string | null
-  region: string | null
-  reason: string
-  state: Deviation['state']
-  /** The state as it stands now: `expired` once an approved deviation's date has passed. */
-  standing: DeviationState
-  proposedBy: { id: number, name: string, email: string }
-  proposedAt: string
-  decidedBy: { id: number, name: string, email: string } | null
-  decidedAt: string | null
-  decisionComment: string | null
-  expiresAtVersion: string | null
-  expiresOn: string | null
-  history: { at: string, actor: string, action: string, comment: string | null }[]
-  /** What the caller may do with it. */
-  may: { decide: boolean, withdraw: boolean }
-}
 
 const iso = (d: Date | string | null) => (d ? new Date(d).toISOString() : null)
 

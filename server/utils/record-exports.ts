@@ -4,7 +4,7 @@
 // fast-xml-parser's builder, which escapes text and attributes.
 import { XMLBuilder } from 'fast-xml-parser'
 import type { RunCaseRow } from '../../shared/domain/api-types'
-import type { VerificationRecord } from './verification-record'
+import type { VerificationRecord } from '../../shared/domain/record-types'
 
 type Cases = Map<string, RunCaseRow[]>
 

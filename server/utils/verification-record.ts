@@ -2,63 +2,14 @@
 // for, assembled once here and used by the record page and every export
 // (JSON, CSV, JUnit XML in server/utils/record-exports.ts).
 import { and, asc, desc, eq, notInArray } from 'drizzle-orm'
-import { standingForVersion, type VersionStanding } from '../../shared/domain/deviations'
+import { standingForVersion } from '../../shared/domain/deviations'
 import { sortVersions } from '../../shared/domain/versions'
-import type { RunCaseRow, RunDetail } from '../../shared/domain/api-types'
-import type { BuildEnvironment } from '../database/schema'
+import type { RunCaseRow } from '../../shared/domain/api-types'
+import type { RecordReference, RecordSet, VerificationRecord } from '../../shared/domain/record-types'
 import type { CurrentUser } from './auth'
-import type { DeviationView } from './deviation-workflow'
 
 export const RECORD_CAUTION = 'A verdict from Plumbline is evidence for a verification record. It does not replace an organisation\'s QA programme. '
   + 'Where results feed safety-related work, the organisation\'s procedures, local codes and licensed review govern.'
-
-export interface RecordReference {
-  id: number
-  revision: number
-  currentRevision: number
-  name: string
-  functionId: string
-  convention: string
-  output: string
-  source: string
-  targetDigits: number
-  criterion: unknown
-  caseCount: number
-  frozenAt: string | null
-}
-
-export interface RecordSet {
-  slug: string
-  required: boolean
-  reference: RecordReference | null
-  run: RunDetail | null
-  /** Failing cases (shown verdict not pass or accepted), up to the page's limit; `failureCount` has them all. */
-  failures: RunCaseRow[]
-  failureCount: number
-}
-
-export interface RecordSignOff {
-  id: number
-  kind: 'sign' | 'countersign'
-  by: { name: string, email: string }
-  at: string
-  comment: string
-  runIds: number[]
-  summary: unknown
-  supersededByRunId: number | null
-}
-
-export interface VerificationRecord {
-  generatedAt: string
-  caution: string
-  code: { slug: string, name: string, team: string, description: string, language: string }
-  version: { id: number, label: string, commitId: string, environment: BuildEnvironment, createdAt: string }
-  requiredSets: string[]
-  missingRequired: string[]
-  sets: RecordSet[]
-  deviations: Array<DeviationView & { forThisVersion: VersionStanding }>
-  signOffs: RecordSignOff[]
-}
 
 const SHOWN_OK = ['pass', 'accepted'] as const
 
@@ -116,7 +67,7 @@ async function referenceFor(slug: string, usedId: number | null): Promise<Record
   return {
     id: used.id, revision: used.revision, currentRevision: revs[0]!.revision, name: used.name, functionId: used.functionId, convention: used.convention,
     output: used.output, source: used.source, targetDigits: used.targetDigits, criterion: used.criterion, caseCount: used.caseCount,
-    frozenAt: used.frozenAt ? new Date(used.frozenAt).toISOString() : null,
+    frozenAt: used.frozenAt ? new Date(used.frozenAt).toISOString() : null, definition: definitionOf(used),
   }
 }
 

@@ -2,6 +2,7 @@
 // pages import them for typing. Exact numbers are strings throughout.
 import type { Verdict } from './enums'
 import type { CellState } from './board'
+import type { DeviationState } from './deviations'
 
 export interface ReferenceSetSummary {
   id: number
@@ -135,4 +136,30 @@ export interface ErrorMap {
   yParam: string | null
   metric: 'ulps' | 'relative'
   points: ErrorMapPoint[]
+}
+
+export interface DeviationPerson { id: number, name: string, email: string }
+
+export interface DeviationView {
+  id: number
+  code: { slug: string, name: string }
+  setSlug: string
+  scope: 'case' | 'region' | 'set'
+  caseInputKey: string | null
+  region: string | null
+  reason: string
+  /** The state as stored. */
+  state: DeviationState
+  /** The state as it stands now: `expired` once an approved deviation's date has passed. */
+  standing: DeviationState
+  proposedBy: DeviationPerson
+  proposedAt: string
+  decidedBy: DeviationPerson | null
+  decidedAt: string | null
+  decisionComment: string | null
+  expiresAtVersion: string | null
+  expiresOn: string | null
+  history: { at: string, actor: string, action: string, comment: string | null }[]
+  /** What the caller may do with it. */
+  may: { decide: boolean, withdraw: boolean }
 }

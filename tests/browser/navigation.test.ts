@@ -7,10 +7,10 @@ import { demoUser } from '../support/api'
 import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 const EXPECTED: Record<string, string[]> = {
-  admin: ['Board', 'Reference sets', 'Codes', 'Submit', 'Admin'],
-  qa: ['Board', 'Reference sets', 'Codes', 'Submit'],
-  owner: ['Board', 'Reference sets', 'Codes'],
-  viewer: ['Board', 'Reference sets', 'Codes'],
+  admin: ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit', 'Admin'],
+  qa: ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit'],
+  owner: ['Board', 'Reference sets', 'Codes', 'Deviations'],
+  viewer: ['Board', 'Reference sets', 'Codes', 'Deviations'],
 }
 
 let browser: Session
