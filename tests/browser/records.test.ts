@@ -90,6 +90,8 @@ describe('verification record and deviations in the browser', () => {
     }
     await page.setViewportSize({ width: 390, height: 844 })
     await page.screenshot({ path: join(SCREENSHOTS, 'record-page-390.png'), fullPage: true })
+    // wide tables scroll inside their own box; the page itself does not scroll sideways
+    expect(await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)).toBeLessThanOrEqual(0)
     await page.close()
   })
 
