@@ -152,6 +152,9 @@ describe('two-person rule', () => {
     const res = await them.post(`/api/deviations/${id}/approve`, { comment: 'Approving my own.' })
     expect(res.status).toBe(403)
     expect(res.body.data.code).toBe('two_person_rule')
+    // leave the demo code's owners and the active users as they were
+    await sql('DELETE FROM code_owners WHERE user_id = ?', [userId])
+    expect((await admin.patch(`/api/users/${userId}`, { disabled: true })).status).toBe(200)
   })
 })
 

@@ -7,13 +7,17 @@ import { XMLParser } from 'fast-xml-parser'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { type Client, signedIn, unique } from '../support/api'
 import { hermiteSet, readySet, upload } from '../support/sets'
-import { sql, submitTable, tableFromSet } from '../support/records'
+import { freshMinor, sql, submitTable, tableFromSet } from '../support/records'
 
 let qa: Client, owner: Client, viewer: Client, admin: Client
 let setA: { id: number, slug: string, caseCount: number }
 let setB: { id: number, slug: string, caseCount: number }
-let code = ''
-const V = '1.0.0'
+// Quadrat, owned by the demo owner; version labels of this test's own
+const code = 'quadrat'
+const minor = freshMinor()
+const V = `80.${minor}.0`
+const V2 = `80.${minor}.1`
+const V3 = `80.${minor}.2`
 const base = () => `/api/codes/${code}`
 const json = (v: unknown) => (typeof v === 'string' ? JSON.parse(v) : v)
 const offAt = (n: string, x: string) => (i: Record<string, string>) => (i.n === n && i.x === x ? 'off' as const : null)
@@ -22,10 +26,6 @@ beforeAll(async () => {
   ;[qa, owner, viewer, admin] = await Promise.all([signedIn('qa'), signedIn('owner'), signedIn('viewer'), signedIn('admin')])
   setA = await readySet(qa, hermiteSet(unique('sign-a'), { source: 'Plumbline engine; spot values checked against A&S Table 22.12' }))
   setB = await readySet(qa, hermiteSet(unique('sign-b')))
-  // a code of this test's own, owned by the demo owner
-  code = unique('signcode')
-  await sql('INSERT INTO codes (slug, name, team_id, description) SELECT ?, ?, id, \'Sign-off test code\' FROM teams ORDER BY id LIMIT 1', [code, `Code ${code}`])
-  await sql('INSERT INTO code_owners (code_id, user_id) SELECT c.id, u.id FROM codes c, users u WHERE c.slug = ? AND u.email = \'owner@corrie-point.test\'', [code])
 })
 
 describe('required sets', () => {
@@ -81,7 +81,7 @@ describe('signing a version', () => {
   })
 
   it('needs a signature before a countersignature, and a second person for it', async () => {
-    const label = '1.1.0'
+    const label = V2
     await submitTable(qa, code, label, setA.id, await tableFromSet(qa, setA.id))
     await submitTable(qa, code, label, setB.id, await tableFromSet(qa, setB.id))
     const early = await viewer.post(`${base()}/versions/${label}/countersign`, { comment: 'Too early.' })
@@ -117,13 +117,13 @@ describe('signing a version', () => {
 })
 
 describe('the verification record', () => {
-  const label = '2.0.0'
+  const label = V3
   let deviationId = 0
   let runA = 0
   beforeAll(async () => {
     runA = await submitTable(qa, code, label, setA.id, await tableFromSet(qa, setA.id, i => (i.n === '8' && (i.x === '0.5' || i.x === '1') ? 'off' : null)))
-    deviationId = (await owner.post('/api/deviations', { code, set: setA.slug, scope: 'case', inputs: { n: '8', x: '1' }, reason: 'Known cancellation at n = 8; tracked for the next release.', expiresAtVersion: '3.0.0' })).body.deviation.id
-    expect((await qa.post(`/api/deviations/${deviationId}/approve`, { comment: 'Accepted until 3.0.0.' })).status).toBe(200)
+    deviationId = (await owner.post('/api/deviations', { code, set: setA.slug, scope: 'case', inputs: { n: '8', x: '1' }, reason: 'Known cancellation at n = 8; tracked for the next release.', expiresAtVersion: '999.0.0' })).body.deviation.id
+    expect((await qa.post(`/api/deviations/${deviationId}/approve`, { comment: 'Accepted until 999.0.0.' })).status).toBe(200)
   })
 
   it('shows the version, each set as fixed, results per region, failures, deviations, signatures and the caution', async () => {
