@@ -102,7 +102,7 @@ describe('verification record and deviations in the browser', () => {
     await expect.poll(() => page.getByTestId('case-total').innerText()).toBe('1')
     await page.getByTestId('case-expand').first().click()
     await page.setViewportSize({ width: 390, height: 844 })
-    const wide = await page.evaluate(() => [...document.querySelectorAll('body *')].filter(e => e.getBoundingClientRect().right > window.innerWidth + 1 && !e.closest('.overflow-x-auto')).map(e => `${e.tagName}.${e.className}`.slice(0, 120)))
+    const wide = await page.evaluate(() => Array.from(document.querySelectorAll('body *')).filter(e => e.getBoundingClientRect().right > window.innerWidth + 1 && !e.closest('.overflow-x-auto')).map(e => `${e.tagName}.${e.className}`.slice(0, 120)))
     expect(wide).toEqual([])
     await page.setViewportSize({ width: 1280, height: 900 })
     await page.getByTestId('propose-case').click()
