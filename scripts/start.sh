@@ -45,4 +45,5 @@ trap 'kill "$worker_pid" "$server_pid" $catcher_pid 2>/dev/null || true' EXIT
 for _ in $(seq 1 100); do curl -fsS "http://$HOST:$PORT/api/health" >/dev/null 2>&1 && break; sleep 0.2; done
 # Demo reference sets and runs, through the server's own API (idempotent).
 npx tsx scripts/seed-runs.ts "http://$HOST:$PORT" || echo "WARNING: the demo runs could not be made; the app is running without them" >&2
+npx tsx scripts/seed-release.ts "http://$HOST:$PORT" || echo "WARNING: the demo deviation and sign-off could not be made" >&2
 wait "$server_pid"

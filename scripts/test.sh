@@ -14,7 +14,7 @@ flock 8
 export NO_COLOR=1
 export PATH="/usr/sbin:$PATH"
 
-bash scripts/ensure-debian.sh mariadb-server mariadb-client chromium fonts-liberation python3-mpmath python3-gmpy2
+bash scripts/ensure-debian.sh mariadb-server mariadb-client chromium fonts-liberation python3-mpmath python3-gmpy2 poppler-utils
 
 bash scripts/db.sh reset test >/dev/null
 export NUXT_DATABASE_URL="$(bash scripts/db.sh url test)"

@@ -60,10 +60,10 @@ export default defineEventHandler(async (event): Promise<BoardReply> => {
   const latest = await latestRuns([...shown.values()].flat().map(v => v.id), filter.set)
   const runOf = new Map(latest.map(r => [`${r.versionId}:${r.slug}`, r]))
 
-  // THE place where a cell's latest-run counts become its state. Anything
-  // that changes what counts (approved deviations, per run id) adjusts
-  // `countsByRun` here, before the cells below are decided.
-  const countsByRun = new Map<number, Counts>(latest.map(r => [r.id, r.counts]))
+  // THE place where a cell's latest-run counts become its state: approved
+  // deviations turn the failures they cover into `accepted` (server/utils/deviations.ts)
+  const withDeviations = await countsWithDeviations(latest.map(r => ({ id: r.id, versionId: r.versionId, setId: r.setId, setSlug: r.slug, counts: r.counts })))
+  const countsByRun = new Map<number, Counts>(latest.map(r => [r.id, withDeviations.get(r.id) ?? r.counts]))
 
   const totals: Record<CellState, number> = { passed: 0, failed: 0, accepted: 0, unverified: 0, stale: 0 }
   const cell = (versionId: number, slug: string, revision: number): BoardCell => {

@@ -8,6 +8,7 @@ export type Counts = Partial<Record<Verdict, number>>
 export interface LatestRun {
   id: number
   versionId: number
+  setId: number
   slug: string
   revision: number
   counts: Counts
@@ -22,7 +23,7 @@ export async function latestRuns(versionIds: number[], slug?: string): Promise<L
   // the window runs over narrow rows only: a JSON (text) column in it would
   // push MariaDB's temporary table to disk; counts join on afterwards by id
   const [rows] = await useDb().execute(sql`
-    SELECT l.id, l.version_id, l.slug, l.revision, l.is_regression, runs.counts FROM (
+    SELECT l.id, l.version_id, runs.set_id, l.slug, l.revision, l.is_regression, runs.counts FROM (
       SELECT r.id, r.version_id, s.slug, s.revision, r.is_regression,
              ROW_NUMBER() OVER (PARTITION BY r.version_id, s.slug ORDER BY r.id DESC) AS rn
       FROM runs r JOIN reference_sets s ON s.id = r.set_id
@@ -30,7 +31,7 @@ export async function latestRuns(versionIds: number[], slug?: string): Promise<L
       ${slug ? sql`AND s.slug = ${slug}` : sql``}
     ) l JOIN runs ON runs.id = l.id WHERE l.rn = 1`) as unknown as [Array<Record<string, unknown>>]
   return rows.map(r => ({
-    id: Number(r.id), versionId: Number(r.version_id), slug: String(r.slug), revision: Number(r.revision),
+    id: Number(r.id), versionId: Number(r.version_id), setId: Number(r.set_id), slug: String(r.slug), revision: Number(r.revision),
     counts: json<Counts>(r.counts), isRegression: Boolean(r.is_regression),
   }))
 }

@@ -114,6 +114,7 @@ export async function storeRun(input: StoreInput): Promise<{ id: number, counts:
     await tx.update(schema.referenceSets).set({ frozenAt: new Date() }).where(and(eq(schema.referenceSets.id, input.set.id), isNull(schema.referenceSets.frozenAt)))
     clock('store: figures, worst case and freeze')
     await markRegression(tx, { id: runId, codeId: input.codeId, versionId, setSlug: input.set.slug, counts: overall.counts })
+    await supersedeSignOffs(tx, versionId, runId, input.actor)
     await recordAudit(tx, input.actor, 'submit-run', 'run', runId, { versionId, setId: input.set.id, sha256: input.sha, counts: overall.counts })
     // the failure notice to the code's owners is stored with the run, in a
     // savepoint: a fault in composing it rolls back only the notice, never the run

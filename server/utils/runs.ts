@@ -4,6 +4,7 @@ import { and, asc, desc, eq, gte, inArray, lte, sql, type SQL } from 'drizzle-or
 import { cellState } from '../../shared/domain/board'
 import type { RunCaseRow, RunDetail, RunFigures } from '../../shared/domain/api-types'
 import { VERDICTS, type Verdict } from '../../shared/domain/enums'
+import { plainDeviationColumns, runWithDeviations, type DeviationColumns } from './deviations'
 
 const r = () => schema.caseResults
 const c = () => schema.cases
@@ -12,11 +13,12 @@ const c = () => schema.cases
 export const caseInputs = () => sql<Record<string, string> | null>`COALESCE(${r().inputs}, ${c().inputs})`
   .mapWith((v: unknown) => (typeof v === 'string' ? JSON.parse(v) as Record<string, string> : v as Record<string, string> | null))
 
-export const caseRowColumns = () => ({
+/** The columns of a case row; `dev` (server/utils/deviations.ts) shows the verdict with approved deviations applied. */
+export const caseRowColumns = (dev: DeviationColumns = plainDeviationColumns()) => ({
   id: r().id, line: r().lineNumber, inputs: caseInputs(), region: r().region, measured: r().measured,
   reference: c().referenceValue, referenceDigits: c().certifiedDigits, kappa: c().conditionNumber,
   absError: r().absError, relError: r().relError, ulps: r().ulps, digitsAgreed: r().digitsAgreed,
-  verdict: r().verdict, decidedBy: r().decidedBy,
+  verdict: dev.verdict, decidedBy: r().decidedBy, storedVerdict: r().verdict, acceptedBy: dev.acceptedBy,
 })
 
 const blankCounts = () => Object.fromEntries(VERDICTS.map(v => [v, 0])) as Record<Verdict, number>
@@ -38,7 +40,7 @@ export async function loadRun(id: number): Promise<RunDetail> {
     ? (await db.select(caseRowColumns()).from(r()).leftJoin(c(), eq(c().id, r().caseId)).where(eq(r().id, row.run.worstCaseId)))[0] ?? null
     : null
   const figures = (f: RunFigures): RunFigures => ({ total: f.total, counts: { ...blankCounts(), ...f.counts }, maxRelError: f.maxRelError, medianRelError: f.medianRelError, rmsRelError: f.rmsRelError, maxUlps: f.maxUlps })
-  return {
+  return runWithDeviations({
     id: row.run.id,
     createdAt: new Date(row.run.createdAt).toISOString(),
     code: { slug: row.code.slug, name: row.code.name },
@@ -53,7 +55,7 @@ export async function loadRun(id: number): Promise<RunDetail> {
     regions: Object.fromEntries(Object.entries(stored.regions).map(([k, f]) => [k, figures(f)])),
     worst: worst as RunCaseRow | null,
     isRegression: row.run.isRegression,
-  }
+  })
 }
 
 export interface CaseFilter {
@@ -64,9 +66,9 @@ export interface CaseFilter {
   caseId?: number
 }
 
-export function caseWhere(runId: number, f: CaseFilter): SQL {
+export function caseWhere(runId: number, f: CaseFilter, dev: DeviationColumns = plainDeviationColumns()): SQL {
   const parts: SQL[] = [eq(r().runId, runId)]
-  if (f.verdict?.length) parts.push(inArray(r().verdict, f.verdict))
+  if (f.verdict?.length) parts.push(inArray(dev.verdict, f.verdict))
   if (f.region) parts.push(eq(r().region, f.region))
   if (f.minRel !== undefined) parts.push(gte(r().relErrorKey, f.minRel))
   if (f.maxRel !== undefined) parts.push(lte(r().relErrorKey, f.maxRel))
@@ -83,8 +85,8 @@ export const SORTS = {
   verdict: () => r().verdict,
 } as const
 
-export function orderFor(sort: keyof typeof SORTS, dir: 'asc' | 'desc') {
-  const col = SORTS[sort]()
+export function orderFor(sort: keyof typeof SORTS, dir: 'asc' | 'desc', dev: DeviationColumns = plainDeviationColumns()) {
+  const col = sort === 'verdict' ? dev.verdict : SORTS[sort]()
   // nulls (no error figure) sort last either way; the id keeps pages stable
   return [sql`${col} IS NULL`, dir === 'asc' ? asc(col) : desc(col), asc(r().id)]
 }

@@ -2,6 +2,7 @@
 // pages import them for typing. Exact numbers are strings throughout.
 import type { Verdict } from './enums'
 import type { CellState } from './board'
+import type { DeviationState } from './deviations'
 
 export interface ReferenceSetSummary {
   id: number
@@ -75,6 +76,21 @@ export interface RunDetail {
   regions: Record<string, RunFigures>
   worst: RunCaseRow | null
   isRegression: boolean
+  /** Counts as judged and stored, before any deviation accepted a failure. */
+  storedCounts: Record<Verdict, number>
+  /** Approved deviations that apply to this run, with how many failures each accepted. */
+  deviations: AppliedDeviation[]
+}
+
+export interface AppliedDeviation {
+  id: number
+  scope: 'case' | 'region' | 'set'
+  caseInputKey: string | null
+  region: string | null
+  reason: string
+  expiresAtVersion: string | null
+  expiresOn: string | null
+  accepted: number
 }
 
 export interface RunCaseRow {
@@ -90,8 +106,13 @@ export interface RunCaseRow {
   relError: string | null
   ulps: string | null
   digitsAgreed: string | null
+  /** The verdict as shown: `accepted` when an approved deviation covers a failure. */
   verdict: Verdict
   decidedBy: string
+  /** The verdict the run was judged with, as stored. */
+  storedVerdict: Verdict
+  /** The deviation that accepted this failure, if any. */
+  acceptedBy: number | null
 }
 
 export interface RunCasePage {
@@ -273,4 +294,30 @@ export interface AuditPage {
   pageSize: number
   objectTypes: string[]
   rows: AuditEntryRow[]
+}
+
+export interface DeviationPerson { id: number, name: string, email: string }
+
+export interface DeviationView {
+  id: number
+  code: { slug: string, name: string }
+  setSlug: string
+  scope: 'case' | 'region' | 'set'
+  caseInputKey: string | null
+  region: string | null
+  reason: string
+  /** The state as stored. */
+  state: DeviationState
+  /** The state as it stands now: `expired` once an approved deviation's date has passed. */
+  standing: DeviationState
+  proposedBy: DeviationPerson
+  proposedAt: string
+  decidedBy: DeviationPerson | null
+  decidedAt: string | null
+  decisionComment: string | null
+  expiresAtVersion: string | null
+  expiresOn: string | null
+  history: { at: string, actor: string, action: string, comment: string | null }[]
+  /** What the caller may do with it. */
+  may: { decide: boolean, withdraw: boolean }
 }

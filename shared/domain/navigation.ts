@@ -13,6 +13,7 @@ export const SECTIONS: readonly Section[] = [
   { to: '/', label: 'Board', roles: everyone },
   { to: '/reference-sets', label: 'Reference sets', roles: everyone },
   { to: '/codes', label: 'Codes', roles: everyone },
+  { to: '/deviations', label: 'Deviations', roles: everyone },
   { to: '/submit', label: 'Submit', roles: ['admin', 'qa'] },
   { to: '/audit', label: 'Audit trail', roles: ['admin', 'viewer'] },
   { to: '/admin', label: 'Admin', roles: ['admin'] },

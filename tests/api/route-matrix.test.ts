@@ -50,6 +50,18 @@ const ROUTES: Route[] = [
   { method: 'GET', path: '/api/runs/999999/cases', file: 'runs/[id]/cases.get.ts', roles: ALL, okStatus: [404] },
   { method: 'GET', path: '/api/runs/999999/map', file: 'runs/[id]/map.get.ts', roles: ALL, okStatus: [404] },
   { method: 'GET', path: '/api/runs/999999/export', file: 'runs/[id]/export.get.ts', roles: ALL, okStatus: [404] },
+  { method: 'GET', path: '/api/deviations', file: 'deviations/index.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'POST', path: '/api/deviations', file: 'deviations/index.post.ts', roles: ['owner', 'admin'], body: {}, okStatus: [400] },
+  { method: 'POST', path: '/api/deviations/999999/approve', file: 'deviations/[id]/approve.post.ts', roles: ['qa', 'viewer', 'admin'], body: {}, okStatus: [400] },
+  { method: 'POST', path: '/api/deviations/999999/reject', file: 'deviations/[id]/reject.post.ts', roles: ['qa', 'viewer', 'admin'], body: {}, okStatus: [400] },
+  // the comment is optional when withdrawing, so an allowed caller reaches the 404
+  { method: 'POST', path: '/api/deviations/999999/withdraw', file: 'deviations/[id]/withdraw.post.ts', roles: ['owner', 'admin'], body: {}, okStatus: [404] },
+  { method: 'GET', path: '/api/codes/oscillite/required-sets', file: 'codes/[slug]/required-sets.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'PUT', path: '/api/codes/oscillite/required-sets', file: 'codes/[slug]/required-sets.put.ts', roles: ['qa', 'admin'], body: {}, okStatus: [400] },
+  { method: 'POST', path: '/api/codes/oscillite/versions/2.3.0/sign-off', file: 'codes/[slug]/versions/[label]/sign-off.post.ts', roles: ['owner', 'admin'], body: {}, okStatus: [400] },
+  { method: 'POST', path: '/api/codes/oscillite/versions/2.3.0/countersign', file: 'codes/[slug]/versions/[label]/countersign.post.ts', roles: ['viewer', 'admin'], body: {}, okStatus: [400] },
+  { method: 'GET', path: '/api/codes/oscillite/versions/2.3.0/record', file: 'codes/[slug]/versions/[label]/record.get.ts', roles: ALL, okStatus: [200] },
+  { method: 'GET', path: '/api/codes/oscillite/versions/2.3.0/record/export?format=junit', file: 'codes/[slug]/versions/[label]/record/export.get.ts', roles: ALL, okStatus: [200] },
 ]
 
 const clients = new Map<Role, Client>()

@@ -187,7 +187,7 @@ describe('submissions', () => {
     const csv = (await viewer.get(`/api/runs/${r.body.run.id}/export?format=csv`)).body as string
     const lines = csv.trim().split('\n')
     expect(lines[0]).toMatch(/^# A verdict is evidence/)
-    expect(lines[1]).toBe('line,n,x,region,measured,reference,reference_digits,abs_error,rel_error,ulps,digits_agreed,verdict,decided_by')
+    expect(lines[1]).toBe('line,n,x,region,measured,reference,reference_digits,abs_error,rel_error,ulps,digits_agreed,verdict,decided_by,stored_verdict,accepted_by_deviation')
     expect(lines).toHaveLength(22)
     const json = (await viewer.get(`/api/runs/${r.body.run.id}/export?format=json`)).body
     expect(json.caution).toMatch(/does not replace/)

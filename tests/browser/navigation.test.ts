@@ -7,10 +7,10 @@ import { demoUser } from '../support/api'
 import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 const EXPECTED: Record<string, string[]> = {
-  admin: ['Board', 'Reference sets', 'Codes', 'Submit', 'Audit trail', 'Admin'],
-  qa: ['Board', 'Reference sets', 'Codes', 'Submit'],
-  owner: ['Board', 'Reference sets', 'Codes'],
-  viewer: ['Board', 'Reference sets', 'Codes', 'Audit trail'],
+  admin: ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit', 'Audit trail', 'Admin'],
+  qa: ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit'],
+  owner: ['Board', 'Reference sets', 'Codes', 'Deviations'],
+  viewer: ['Board', 'Reference sets', 'Codes', 'Deviations', 'Audit trail'],
 }
 
 let browser: Session

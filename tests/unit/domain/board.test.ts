@@ -21,10 +21,10 @@ describe('board cell state', () => {
 
 describe('navigation by role', () => {
   it.each([
-    ['admin', ['Board', 'Reference sets', 'Codes', 'Submit', 'Audit trail', 'Admin']],
-    ['qa', ['Board', 'Reference sets', 'Codes', 'Submit']],
-    ['owner', ['Board', 'Reference sets', 'Codes']],
-    ['viewer', ['Board', 'Reference sets', 'Codes', 'Audit trail']],
+    ['admin', ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit', 'Audit trail', 'Admin']],
+    ['qa', ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit']],
+    ['owner', ['Board', 'Reference sets', 'Codes', 'Deviations']],
+    ['viewer', ['Board', 'Reference sets', 'Codes', 'Deviations', 'Audit trail']],
   ] as const)('%s sees %j', (role, labels) => {
     expect(sectionsFor(role).map(s => s.label)).toEqual(labels)
   })

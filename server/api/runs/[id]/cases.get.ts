@@ -24,12 +24,12 @@ export default defineEventHandler(async (event): Promise<RunCasePage> => {
   await requireRunAccess(caller, id)
   const q = validQuery(event, query)
   const db = useDb()
-  const [exists] = await db.select({ id: schema.runs.id }).from(schema.runs).where(eq(schema.runs.id, id))
-  if (!exists) throw httpError(404, 'not_found', `There is no run with id ${id}.`)
-  const where = caseWhere(id, q)
+  const run = await deviationRunRef(id)
+  const { columns } = await runDeviationColumns(run)
+  const where = caseWhere(id, q, columns)
   const r = schema.caseResults
   const [total] = await db.select({ n: count() }).from(r).where(where)
-  const rows = await db.select(caseRowColumns()).from(r).leftJoin(schema.cases, eq(schema.cases.id, r.caseId))
-    .where(where).orderBy(...orderFor(q.sort, q.dir)).limit(q.pageSize).offset((q.page - 1) * q.pageSize)
+  const rows = await db.select(caseRowColumns(columns)).from(r).leftJoin(schema.cases, eq(schema.cases.id, r.caseId))
+    .where(where).orderBy(...orderFor(q.sort, q.dir, columns)).limit(q.pageSize).offset((q.page - 1) * q.pageSize)
   return { total: total?.n ?? 0, page: q.page, pageSize: q.pageSize, rows }
 })

@@ -10,8 +10,9 @@ export default defineEventHandler(async (event): Promise<ErrorMap> => {
   const { id } = validParams(event, idParamSchema)
   await requireRunAccess(caller, id)
   const run = await loadRun(id)
+  const { columns } = await runDeviationColumns({ id, versionId: run.version.id, setId: run.set.id, setSlug: run.set.slug })
   const r = schema.caseResults
-  const rows = await useDb().select({ id: r.id, inputs: schema.cases.inputs, ulps: r.ulpsKey, rel: r.relErrorKey, verdict: r.verdict })
+  const rows = await useDb().select({ id: r.id, inputs: schema.cases.inputs, ulps: r.ulpsKey, rel: r.relErrorKey, verdict: columns.verdict })
     .from(r).innerJoin(schema.cases, eq(schema.cases.id, r.caseId)).where(and(eq(r.runId, id), isNotNull(r.caseId)))
   const params = run.set.parameters.filter(p => rows.some(row => row.inputs && Number.isFinite(Number(row.inputs[p]))))
   const xParam = params.includes('x') ? 'x' : params.includes('z') ? 'z' : params[params.length - 1] ?? 'x'
