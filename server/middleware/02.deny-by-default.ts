@@ -18,6 +18,7 @@ const TOKEN_API: Array<[method: string, path: RegExp]> = [
   ['GET', /^\/api\/runs\/\d+(\/(cases|export|map))?$/],
   ['GET', /^\/api\/board$/],
   ['GET', /^\/api\/codes(\/[a-z0-9-]+)?$/],
+  ['GET', /^\/api\/codes\/[a-z0-9-]+\/versions\/[^/]+\/record(\/export)?$/],
 ]
 
 export default defineEventHandler(async (event) => {

@@ -3,7 +3,7 @@ import { auditLog } from '../database/schema'
 import type { CurrentUser } from './auth'
 
 export type Tx = Parameters<Parameters<Db['transaction']>[0]>[0]
-type Writer = Db | Tx
+export type Writer = Db | Tx
 
 /** Append one entry to the audit trail, inside the caller's transaction. */
 export async function recordAudit(

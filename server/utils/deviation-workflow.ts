@@ -11,6 +11,8 @@ import { DEFAULT_REGION } from '../../shared/compare/regions'
 import type { DeviationView } from '../../shared/domain/api-types'
 import type { Deviation } from '../database/schema'
 import type { CurrentUser } from './auth'
+import { mailSettings } from '../mail/config'
+import { queueDeviationApprovalRequest } from '../mail/notifications'
 
 const iso = (d: Date | string | null) => (d ? new Date(d).toISOString() : null)
 
@@ -69,6 +71,8 @@ export async function proposeDeviation(user: CurrentUser, input: ProposeDeviatio
       proposedBy: user.id, expiresAtVersion: input.expiresAtVersion ?? null, expiresOn,
     }).$returningId()
     await recordAudit(tx, user, 'propose-deviation', 'deviation', row!.id, { code: code.slug, set: input.set, scope: input.scope, caseInputKey, region, reason: input.reason, expiresAtVersion: input.expiresAtVersion ?? null, expiresOn: iso(expiresOn) })
+    // the request to approve goes to those who may settle it, stored with the proposal
+    await queueDeviationApprovalRequest(tx, row!.id, { link: `${mailSettings().appUrl}/deviations?code=${code.slug}` })
     return row!.id
   })
 }
@@ -109,7 +113,7 @@ export async function withdrawDeviation(user: CurrentUser, id: number, comment: 
 }
 
 /** Deviations with their people and history, newest first; `may` is worked out for `viewer`. */
-export async function listDeviations(viewer: CurrentUser, filter: { codeId?: number, setSlug?: string, state?: DeviationState, ids?: number[] }): Promise<DeviationView[]> {
+export async function listDeviations(viewer: CurrentUser | null, filter: { codeId?: number, setSlug?: string, state?: DeviationState, ids?: number[] }): Promise<DeviationView[]> {
   const db = useDb()
   const { deviations: d, codes, users } = schema
   const decider = alias(users, 'decider')
@@ -137,8 +141,8 @@ export async function listDeviations(viewer: CurrentUser, filter: { codeId?: num
       expiresAtVersion: row.expiresAtVersion, expiresOn: iso(row.expiresOn),
       history: audit.filter(a => a.objectId === String(row.id)).map(a => ({ at: iso(a.at)!, actor: a.actor, action: a.action, comment: ((a.detail as { comment?: string }).comment ?? null) || null })),
       may: {
-        decide: row.state === 'proposed' && st === 'proposed' && row.proposedBy !== viewer.id && ['qa', 'viewer', 'admin'].includes(viewer.role),
-        withdraw: (row.state === 'proposed' || row.state === 'approved') && row.proposedBy === viewer.id,
+        decide: viewer !== null && row.state === 'proposed' && st === 'proposed' && row.proposedBy !== viewer.id && ['qa', 'viewer', 'admin'].includes(viewer.role),
+        withdraw: viewer !== null && (row.state === 'proposed' || row.state === 'approved') && row.proposedBy === viewer.id,
       },
     }
   })

@@ -7,7 +7,9 @@ import { cellState, type CellState } from '../../shared/domain/board'
 import type { Verdict } from '../../shared/domain/enums'
 import type { Code, SignOff, Version } from '../database/schema'
 import type { CurrentUser } from './auth'
-import type { Tx } from './audit'
+import { mailSettings } from '../mail/config'
+import { queueSignOffNotice } from '../mail/notifications'
+import type { Tx, Writer } from './audit'
 
 type Counts = Partial<Record<Verdict, number>>
 
@@ -69,7 +71,7 @@ export async function versionSets(codeId: number, versionId: number): Promise<Si
 }
 
 /** Signatures of a version that no later run has superseded. */
-async function activeSignOffs(tx: Tx, versionId: number): Promise<SignOff[]> {
+async function activeSignOffs(tx: Writer, versionId: number): Promise<SignOff[]> {
   return tx.select().from(schema.signOffs).where(and(eq(schema.signOffs.versionId, versionId), isNull(schema.signOffs.supersededByRunId))).orderBy(schema.signOffs.id)
 }
 
@@ -89,6 +91,7 @@ export async function signVersion(user: CurrentUser, slug: string, label: string
     const runIds = sets.flatMap(s => (s.run ? [s.run.id] : []))
     const [row] = await tx.insert(schema.signOffs).values({ versionId: version.id, userId: user.id, kind: 'sign', runIds, summary: sets, comment }).$returningId()
     await recordAudit(tx, user, 'sign-version', 'sign-off', row!.id, { code: code.slug, version: label, runIds, comment })
+    await queueSignOffNotice(tx, row!.id, { link: `${mailSettings().appUrl}/records/${code.slug}/${encodeURIComponent(label)}` })
     return row!.id
   })
 }
@@ -112,7 +115,7 @@ export async function countersignVersion(user: CurrentUser, slug: string, label:
 }
 
 /** Inside a run's store transaction: a new run on a signed version supersedes its standing signatures. */
-export async function supersedeSignOffs(tx: Tx, versionId: number, runId: number, actor: CurrentUser | { id: null, email: string }) {
+export async function supersedeSignOffs(tx: Writer, versionId: number, runId: number, actor: CurrentUser | { id: null, email: string }) {
   const standing = await activeSignOffs(tx, versionId)
   if (!standing.length) return
   await tx.update(schema.signOffs).set({ supersededByRunId: runId }).where(and(eq(schema.signOffs.versionId, versionId), isNull(schema.signOffs.supersededByRunId)))

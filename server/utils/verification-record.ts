@@ -14,7 +14,8 @@ export const RECORD_CAUTION = 'A verdict from Plumbline is evidence for a verifi
 const SHOWN_OK = ['pass', 'accepted'] as const
 
 /** Assemble the record; `failureLimit` caps the failing cases listed per set (exports read every case through recordCases). */
-export async function buildRecord(viewer: CurrentUser, slug: string, label: string, failureLimit = 200): Promise<VerificationRecord> {
+/** `viewer` is null for a CI token: it reads the record but may act on nothing in it. */
+export async function buildRecord(viewer: CurrentUser | null, slug: string, label: string, failureLimit = 200): Promise<VerificationRecord> {
   const db = useDb()
   const { code, version } = await codeVersion(slug, label)
   const [team] = await db.select({ name: schema.teams.name }).from(schema.teams).where(eq(schema.teams.id, code.teamId))

@@ -6,6 +6,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { type Client, signedIn, unique } from '../support/api'
 import { hermiteSet, readySet } from '../support/sets'
 import { freshMinor, sql, submitTable, tableFromSet } from '../support/records'
+import { waitForMail } from '../support/mail'
 
 let qa: Client, owner: Client, viewer: Client, admin: Client
 let set: { id: number, slug: string }
@@ -35,6 +36,17 @@ beforeAll(async () => {
 })
 
 describe('proposing', () => {
+  it('asks a verification engineer to approve, by mail, never the proposer', async () => {
+    const reason = `Cancellation near the zeros; fix planned (${unique('mail')}).`
+    const res = await propose(owner, { reason })
+    expect(res.status, JSON.stringify(res.body)).toBe(201)
+    const got = await waitForMail(m => m.kind === 'deviation-approval' && m.text.includes(reason))
+    expect(got.map(m => m.to)).toContain('qa@corrie-point.test')
+    expect(got.map(m => m.to)).not.toContain('owner@corrie-point.test')
+    expect(got[0]!.text).toContain('/deviations?code=oscillite')
+    expect((await owner.post(`/api/deviations/${res.body.deviation.id}/withdraw`, { comment: 'Only a mail check.' })).status).toBe(200)
+  })
+
   it('refuses callers who are not owners of the code, and bad proposals with the field named', async () => {
     expect((await propose(viewer, {})).status).toBe(403)
     expect((await propose(qa, {})).status).toBe(403)

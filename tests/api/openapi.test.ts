@@ -16,6 +16,11 @@ const INTERNAL = new Set([
   'POST /api/reference-sets', 'PUT /api/reference-sets/{id}', 'POST /api/reference-sets/preview',
   'POST /api/submissions/preview',
   'GET /api/outbox', 'GET /api/outbox/received',
+  // deviations, required sets and signatures are settled by people on the pages; the audit trail is read there
+  'GET /api/deviations', 'POST /api/deviations', 'POST /api/deviations/{id}/approve', 'POST /api/deviations/{id}/reject', 'POST /api/deviations/{id}/withdraw',
+  'GET /api/codes/{slug}/required-sets', 'PUT /api/codes/{slug}/required-sets',
+  'POST /api/codes/{slug}/versions/{label}/sign-off', 'POST /api/codes/{slug}/versions/{label}/countersign',
+  'GET /api/audit',
 ])
 
 function routeFiles(): string[] {

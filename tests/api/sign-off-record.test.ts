@@ -8,6 +8,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { type Client, signedIn, unique } from '../support/api'
 import { hermiteSet, readySet, upload } from '../support/sets'
 import { freshMinor, sql, submitTable, tableFromSet } from '../support/records'
+import { waitForMail } from '../support/mail'
 
 let qa: Client, owner: Client, viewer: Client, admin: Client
 let setA: { id: number, slug: string, caseCount: number }
@@ -60,6 +61,9 @@ describe('signing a version', () => {
     const res = await owner.post(`${base()}/versions/${V}/sign-off`, { comment: 'Reviewed: one known failure in set A.' })
     expect(res.status, JSON.stringify(res.body)).toBe(201)
     signatureId = res.body.signOff.id
+    // the notice of the signature reaches a viewer over SMTP, with a link to the record
+    const [notice] = await waitForMail(m => m.kind === 'sign-off' && m.to === 'viewer@corrie-point.test' && m.text.includes('Reviewed: one known failure in set A.'))
+    expect(notice!.text).toContain(`/records/${code}/${encodeURIComponent(V)}`)
     const [row] = await sql<{ run_ids: string, summary: string, kind: string }>('SELECT run_ids, summary, kind FROM sign_offs WHERE id = ?', [signatureId])
     expect(row!.kind).toBe('sign')
     expect(json(row!.run_ids)).toContain(runB)

@@ -2,8 +2,11 @@ import { recordExportQuery, versionParams } from '../../../../../../../shared/sc
 
 // The verification record as a file: JSON, CSV or JUnit XML, every case of every run listed.
 export default defineEventHandler(async (event) => {
-  const user = await requireRole(event, ...ANY_ROLE)
+  // people of any role, or a read token of this code (CI shows the record too)
+  const caller = await requireAccess(event, { roles: ANY_ROLE, scopes: ['read'] })
   const { slug, label } = validParams(event, versionParams)
+  requireCodeAccess(caller, (await findCode(slug)).id)
+  const user = caller.user
   const { format } = validQuery(event, recordExportQuery)
   const record = await buildRecord(user, slug, label, 0)
   const cases = await recordCases(record)
