@@ -3,6 +3,7 @@
 // reference-set case, so a CI system can show it. XML is built by
 // fast-xml-parser's builder, which escapes text and attributes.
 import { XMLBuilder } from 'fast-xml-parser'
+import { csvCell } from './csv'
 import type { RunCaseRow } from '../../shared/domain/api-types'
 import type { VerificationRecord } from '../../shared/domain/record-types'
 

@@ -66,7 +66,7 @@ describe('reference sets in the browser', () => {
     // A degree past the catalogue's domain passes the schema; the server's 400 lands on the grid part.
     await page.getByLabel('n stop', { exact: true }).fill('30000')
     await page.getByRole('button', { name: 'Preview' }).click()
-    await expect.poll(() => page.getByTestId('grid-part-0').getByRole('alert').count()).toBe(1)
+    await expect.poll(() => page.getByTestId('grid-part-0').getByRole('alert').count(), { timeout: 20_000 }).toBe(1)
     expect(await page.getByTestId('grid-part-0').getByRole('alert').innerText()).toMatch(/\bn\b/)
     await shoot(page, 'reference-set-form-server-issue')
     await page.getByLabel('n stop', { exact: true }).fill('20')
