@@ -67,9 +67,16 @@ function operation(id: string, o: Op): Json {
 const READERS = ['admin', 'qa', 'owner', 'viewer']
 const runId = pathParam('id', 'The run\'s id.')
 
+const FIELD_TEXT: Record<string, string> = {
+  code: 'The code\'s slug, e.g. oscillite.',
+  version: 'The version label; a label the code does not have yet makes a new version.',
+  setId: 'The reference set\'s id (the number in its page\'s address).',
+  commit: 'The commit the table was built from.',
+}
+
 function submissionBodies(): Json {
   const fields = jsonSchema(submissionSchema)
-  const props = fields.properties as Json
+  const props = Object.fromEntries(Object.entries(fields.properties as Record<string, Json>).map(([k, v]) => [k, FIELD_TEXT[k] ? { ...v, description: FIELD_TEXT[k] } : v]))
   const multipart = {
     ...fields,
     properties: {
