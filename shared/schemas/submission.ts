@@ -15,7 +15,11 @@ export const environmentSchema = z.strictObject({
     z.string().trim().min(1).max(80).regex(/^[\w.+\-/@]+$/, { error: 'A library name is letters, digits and . + - _ / @.' }),
     z.string().trim().min(1).max(80),
   ).refine(r => Object.keys(r).length <= 40, { error: 'List at most 40 libraries.' }).optional(),
-}, { error: 'Unknown field in the build environment; use compiler, flags, platform, floatFormat and libraries.' })
+}, {
+  error: iss => iss.code === 'unrecognized_keys'
+    ? `Unknown field${iss.keys.length === 1 ? '' : 's'} ${iss.keys.map(k => `"${k}"`).join(', ')} in the build environment; use compiler, flags, platform, floatFormat and libraries.`
+    : undefined,
+})
 export type Environment = z.infer<typeof environmentSchema>
 
 /** The fields that come with an uploaded table (multipart fields or a JSON body). */

@@ -73,7 +73,9 @@ describe('the OpenAPI document', () => {
     for (const [path, ops] of Object.entries(doc.paths)) {
       const op = ops.get
       if (!op || op['x-plumbline-planned']) continue
-      const url = path.replace('{id}', '999999').replace('{slug}', 'oscillite')
+      const required = (op as { parameters?: Array<{ in: string, name: string, required?: boolean, schema?: { enum?: string[] } }> }).parameters?.filter(p => p.in === 'query' && p.schema?.enum) ?? []
+      const query = required.length ? `?${required.map(p => `${p.name}=${p.schema!.enum![0]}`).join('&')}` : ''
+      const url = path.replace('{id}', '999999').replace('{slug}', 'oscillite').replace('{label}', '0.0.0-none') + query
       const r = await c.request('GET', url, undefined, { authorization: `Bearer ${read}` })
       const takesRead = op['x-plumbline-access'].tokenScopes?.includes('read') ?? false
       if (op['x-plumbline-access'].roles === 'public') expect(r.status, url).toBe(200)

@@ -3,6 +3,7 @@
 // Screenshots of the Outbox and the set-password page for a person to look at.
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { sectionsFor } from '../../shared/domain/navigation'
 import { demoUser } from '../support/api'
 import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
@@ -69,7 +70,7 @@ describe('invitation through the pages', () => {
 
     await page.getByRole('link', { name: 'Go to sign-in' }).click()
     await signInThroughPage(page, email, 'nell-chose-this-1')
-    await expect.poll(() => page.getByTestId('nav-wide').getByRole('link').allInnerTexts()).toEqual(['Board', 'Reference sets', 'Codes'])
+    await expect.poll(() => page.getByTestId('nav-wide').getByRole('link').allInnerTexts()).toEqual(sectionsFor('viewer').map(s => s.label))
     await expect.poll(() => page.getByRole('link', { name: 'Nell Ashgrove · viewer' }).count()).toBe(1)
     await page.close()
   })

@@ -43,6 +43,8 @@ async function as(role: 'viewer' | 'owner' | 'qa'): Promise<Page> {
 async function boardCell(page: Page) {
   await page.goto('/')
   await page.getByLabel('Reference set').selectOption({ label: setName })
+  // one code shows all its versions; tests before this one may have added many
+  await page.getByTestId('filter-code').selectOption('oscillite')
   const row = page.getByTestId('board-code-oscillite').locator('tr', { has: page.locator('th', { hasText: version }) })
   await row.waitFor()
   return row.locator('td [data-state]').first()
