@@ -113,7 +113,7 @@ export interface JudgedSummary {
 }
 
 /** Judge every case of the set against the table's rows (shared/compare/run.ts), as rows ready to store. */
-export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$inferSelect>, table: ParsedTable, index: Record<string, number>, chunkSize = 5000): JudgedRun {
+export function judgeTable(set: ReferenceSet, cases: CaseToJudge[], table: ParsedTable, index: Record<string, number>, chunkSize = 5000): JudgedRun {
   const params = Object.keys(index).filter(k => k !== 'value')
   const specs = isFunctionId(set.functionId) ? CATALOGUE[set.functionId].parameters : []
   const rows = table.rows.map((r) => {
@@ -154,8 +154,13 @@ export function judgeTable(set: ReferenceSet, cases: Array<typeof schema.cases.$
   return { chunks: chunks() }
 }
 
-export async function loadCases(setId: number) {
-  return useDb().select().from(schema.cases).where(eq(schema.cases.setId, setId)).orderBy(asc(schema.cases.ordinal))
+const c = schema.cases
+const caseColumns = { id: c.id, inputs: c.inputs, inputKey: c.inputKey, referenceValue: c.referenceValue, certifiedDigits: c.certifiedDigits, conditionNumber: c.conditionNumber, region: c.region }
+export type CaseToJudge = Pick<typeof schema.cases.$inferSelect, keyof typeof caseColumns>
+
+/** A set's cases in order, with only what judging needs. */
+export async function loadCases(setId: number): Promise<CaseToJudge[]> {
+  return useDb().select(caseColumns).from(c).where(eq(c.setId, setId)).orderBy(asc(c.ordinal))
 }
 
 export const sha256Hex = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')

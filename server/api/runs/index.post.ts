@@ -18,10 +18,14 @@ export default defineEventHandler(async (event) => {
     if (dup) return { run: { id: dup.id, counts: dup.counts }, duplicate: true }
   }
   const clock = stepClock()
+  // the cases are read while the table is parsed; a refused table drops them
+  const loading = loadCases(set.id)
+  loading.catch(() => {})
+  await new Promise(resolve => setImmediate(resolve)) // let the query go out before the parse takes the CPU
   const table = parseUploadedTable(upload.data)
   clock('parse')
   const { index, mapping } = resolveMapping(set, table, fields.mapping, (c, p) => suggestColumnMapping(c, p).mapping)
-  const cases = await loadCases(set.id)
+  const cases = await loading
   clock('load cases')
   const judged = judgeTable(set, cases, table, index)
   const actor = caller.actor
