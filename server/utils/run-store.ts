@@ -82,17 +82,22 @@ export async function storeRun(input: StoreInput): Promise<{ id: number, counts:
     clock('store: run row and file')
 
     let inFlight: Promise<void> = Promise.resolve()
+    let waitedMs = 0 // time Node spent waiting for MariaDB, for PLUMBLINE_TIMING
     let step = input.judged.chunks.next()
     for (; !step.done; step = input.judged.chunks.next()) {
       const tsv = resultsTsv(runId, step.value)
+      const t = performance.now()
       await inFlight
       const chunk = loadChunk(conn, tsv, step.value.length)
       inFlight = chunk.done
       // once the chunk is on its way, judge the next one while the server inserts this one
       await chunk.sent
+      waitedMs += performance.now() - t
     }
+    const t = performance.now()
     await inFlight
-    clock('store: judge and load case results')
+    waitedMs += performance.now() - t
+    clock(`store: judge and load case results (${waitedMs.toFixed(0)} ms of it waiting for MariaDB)`)
 
     const { summary, worst } = step.value
     const { regions, ...overall } = summary
