@@ -44,10 +44,3 @@ export async function requireTokenOf(event: H3Event, scopes: readonly TokenScope
   await useDb().update(t).set({ lastUsedAt: new Date() }).where(eq(t.id, row.id))
   return row
 }
-
-/** Kept for callers that know the code first: a live token of `scope` for this code. */
-export async function requireCodeToken(event: H3Event, codeId: number, scope: TokenScope) {
-  const row = await requireTokenOf(event, [scope])
-  if (row.codeId !== codeId) throw httpError(403, 'token_wrong_code', 'This token belongs to another code.')
-  return row
-}

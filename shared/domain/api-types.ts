@@ -1,6 +1,7 @@
 // Shapes of the API replies that pages read. The server builds exactly these;
 // pages import them for typing. Exact numbers are strings throughout.
 import type { Verdict } from './enums'
+import type { Figures } from '../compare/summary'
 import type { CellState } from './board'
 import type { DeviationState } from './deviations'
 
@@ -52,14 +53,8 @@ export interface TablePreview {
   errorCount: number
 }
 
-export interface RunFigures {
-  total: number
-  counts: Record<Verdict, number>
-  maxRelError: string | null
-  medianRelError: string | null
-  rmsRelError: string | null
-  maxUlps: string | null
-}
+/** A run's figures as the run summary computes them (shared/compare/summary.ts), without the worst case. */
+export type RunFigures = Omit<Figures, 'worst'>
 
 export interface RunDetail {
   id: number

@@ -2,13 +2,13 @@
 // message really arrives over SMTP with a text and an HTML part; invitation
 // and reset links work once and expire; with the SMTP server away, runs still
 // store and their mail waits in the outbox until it is back.
-import { createConnection } from 'mysql2/promise'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createDb, createPool } from '../../server/database/client'
 import { queueDeviationApprovalRequest, queueRunFailureNotice, queueSignOffNotice } from '../../server/mail/notifications'
 import { Client, demoUser, signedIn, unique } from '../support/api'
 import { caughtMessages, linkSecret, smtp, waitForMail } from '../support/mail'
 import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
+import { dbQuery as sql } from '../support/db'
 
 let admin: Client
 let qa: Client
@@ -16,15 +16,6 @@ let set: { id: number, slug: string }
 const pool = createPool(process.env.NUXT_DATABASE_URL!)
 const db = createDb(pool)
 
-async function sql<T = Record<string, unknown>>(query: string, args: unknown[] = []): Promise<T[]> {
-  const conn = await createConnection(process.env.NUXT_DATABASE_URL!)
-  try {
-    return (await conn.query(query, args))[0] as T[]
-  }
-  finally {
-    await conn.end()
-  }
-}
 
 const NS = [0, 4, 8, 12]
 const XS = ['-1', '-0.5', '0', '0.5', '1']

@@ -1,10 +1,10 @@
 // Reference sets and submissions against the real server and MariaDB:
 // computing a set, freezing and revising it, downloads, and judging uploaded
 // tables (formats, verdict kinds, refusal, 413, deduplication, atomicity).
-import { createConnection } from 'mysql2/promise'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { type Client, signedIn, unique } from '../support/api'
 import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
+import { dbQuery } from '../support/db'
 
 let qa: Client
 let viewer: Client
@@ -19,15 +19,9 @@ function table(value: (n: number, x: string) => string, rows = NS.flatMap(n => X
 }
 const honest = (n: number, x: string) => hermiteDouble(n, Number(x)).toPrecision(17)
 
-async function dbCount(sql: string, args: unknown[]) {
-  const conn = await createConnection(process.env.NUXT_DATABASE_URL!)
-  try {
-    const [rows] = await conn.query(sql, args)
-    return Number((rows as Array<{ n: number }>)[0]!.n)
-  }
-  finally {
-    await conn.end()
-  }
+async function dbCount(query: string, args: unknown[]) {
+  const [row] = await dbQuery<{ n: number }>(query, args)
+  return Number(row!.n)
 }
 
 beforeAll(async () => {

@@ -2,10 +2,10 @@
 // secret, scoped to one code and one scope, refused with 401 once revoked or
 // expired, and their last use recorded.
 import { createHash } from 'node:crypto'
-import { createConnection } from 'mysql2/promise'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { Client, signedIn, unique } from '../support/api'
 import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
+import { dbQuery as sql } from '../support/db'
 
 let qa: Client
 let admin: Client
@@ -14,15 +14,6 @@ let quadratRunId: number
 
 const table = ['n,x,H', ...[0, 4, 8, 12].flatMap(n => ['-1', '-0.5', '0', '0.5', '1'].map(x => `${n},${x},${hermiteDouble(n, Number(x)).toPrecision(17)}`))].join('\n') + '\n'
 
-async function sql<T = Record<string, unknown>>(query: string, args: unknown[] = []): Promise<T[]> {
-  const conn = await createConnection(process.env.NUXT_DATABASE_URL!)
-  try {
-    return (await conn.query(query, args))[0] as T[]
-  }
-  finally {
-    await conn.end()
-  }
-}
 
 /** A client that sends only a bearer token, as CI does. */
 function bearer(token: string) {

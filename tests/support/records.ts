@@ -1,9 +1,9 @@
 // Output tables made from a set's own certified values (so every case passes
 // unless a test spoils it), and direct reads of the test database.
-import { createConnection } from 'mysql2/promise'
 import { expect } from 'vitest'
 import type { Client } from './api'
 import { upload } from './sets'
+import { dbQuery } from './db'
 
 export type Spoil = (inputs: Record<string, string>) => 'off' | 'nan' | null
 
@@ -29,16 +29,9 @@ export async function submitTable(client: Client, code: string, version: string,
   return r.body.run.id as number
 }
 
-export async function sql<T = Record<string, unknown>>(statement: string, args: unknown[] = []): Promise<T[]> {
-  const conn = await createConnection(process.env.NUXT_DATABASE_URL!)
-  try {
-    const [rows] = await conn.query(statement, args)
-    return rows as T[]
-  }
-  finally {
-    await conn.end()
-  }
-}
 
 /** A semantic-version minor number no other test run in this database uses. */
 export const freshMinor = () => 100 + Math.floor(Math.random() * 899_900)
+
+/** Direct SQL for tests (tests/support/db.ts). */
+export const sql = dbQuery
