@@ -51,8 +51,8 @@ bind-address=127.0.0.1
 skip-name-resolve
 character-set-server=utf8mb4
 collation-server=utf8mb4_unicode_ci
-innodb_buffer_pool_size=32M
-innodb_log_file_size=16M
+innodb_buffer_pool_size=256M
+innodb_log_file_size=256M
 key_buffer_size=1M
 max_connections=100
 performance_schema=OFF
