@@ -15,14 +15,28 @@ export type ResultRow = typeof caseResults.$inferInsert
 export function tsvField(v: string | number | null | undefined): string {
   if (v === null || v === undefined) return '\\N'
   if (typeof v === 'number') return Number.isFinite(v) ? String(v) : '\\N'
-  return /[\\\t\n\r\0]/.test(v) ? v.replace(/[\\\t\n\r\0]/g, c => ESCAPES[c]!) : v
+  return NEEDS_ESCAPE.test(v) ? v.replace(ESCAPE_ALL, c => ESCAPES[c]!) : v
 }
+const NEEDS_ESCAPE = /[\\\t\n\r\0]/
+const ESCAPE_ALL = /[\\\t\n\r\0]/g
 const ESCAPES: Record<string, string> = { '\\': '\\\\', '\t': '\\t', '\n': '\\n', '\r': '\\r', '\0': '\\0' }
 
-/** The rows of one chunk in LOAD DATA's text format, columns as RESULT_COLUMNS. */
+/**
+ * The rows of one chunk in LOAD DATA's text format, columns as
+ * RESULT_COLUMNS. One template string per row: the free-text fields
+ * (inputs, measured, region, decided by) go through tsvField; the rest are
+ * numbers or the judge's own short strings, which never hold a character
+ * that needs escaping.
+ */
 export function resultsTsv(runId: number, rows: ResultRow[]): Buffer {
-  const lines = rows.map(r => [runId, r.caseId, r.lineNumber, r.inputs ? JSON.stringify(r.inputs) : null, r.measured,
-    r.absError, r.relError, r.ulps, r.digitsAgreed, r.region,
-    r.relErrorKey, r.absErrorKey, r.ulpsKey, r.verdict, r.decidedBy].map(tsvField).join('\t'))
-  return Buffer.from(lines.join('\n') + '\n', 'utf8')
+  let out = ''
+  for (const r of rows) {
+    out += `${runId}\t${tsvField(r.caseId)}\t${tsvField(r.lineNumber)}\t${r.inputs ? tsvField(JSON.stringify(r.inputs)) : '\\N'}\t${tsvField(r.measured)}\t`
+      + `${plain(r.absError)}\t${plain(r.relError)}\t${plain(r.ulps)}\t${plain(r.digitsAgreed)}\t${tsvField(r.region)}\t`
+      + `${tsvField(r.relErrorKey)}\t${tsvField(r.absErrorKey)}\t${tsvField(r.ulpsKey)}\t${r.verdict}\t${tsvField(r.decidedBy)}\n`
+  }
+  return Buffer.from(out, 'utf8')
 }
+
+/** A judge-made figure such as 1.234e-5 (digits, sign, point, e): written as it is. */
+const plain = (v: string | null | undefined) => (v === null || v === undefined ? '\\N' : v)

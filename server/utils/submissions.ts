@@ -4,7 +4,8 @@
 // result in one transaction. A table with unreadable rows is refused whole.
 import { createHash } from 'node:crypto'
 import type { H3Event } from 'h3'
-import { and, asc, eq } from 'drizzle-orm'
+import Busboy from 'busboy'
+import { and, eq } from 'drizzle-orm'
 import { MAX_TABLE_BYTES, parseTable, type ParsedTable } from '../../shared/parse'
 import { judgeRunInChunks, type RunResult } from '../../shared/compare/run'
 import type { summarizeRun } from '../../shared/compare'
@@ -23,15 +24,8 @@ export async function readUpload(event: H3Event): Promise<Upload> {
   if (length > MAX_TABLE_BYTES + 1024 * 1024) throw tooLarge()
   const type = getRequestHeader(event, 'content-type') ?? ''
   if (type.startsWith('multipart/form-data')) {
-    const parts = (await readMultipartFormData(event)) ?? []
-    const fields: Record<string, unknown> = {}
-    let file: Upload | null = null
-    for (const p of parts) {
-      if (p.name === 'file') file = { fileName: p.filename || 'table', data: p.data, fields }
-      else if (p.name) fields[p.name] = p.data.toString('utf8')
-    }
+    const { file, fields } = await readMultipart(event)
     if (!file) throw httpError(400, 'invalid_input', 'Invalid upload: file: attach the output table as the field "file".', { issues: [{ field: 'file', message: 'Attach the output table.' }] })
-    if (file.data.length > MAX_TABLE_BYTES) throw tooLarge()
     const json = (k: string) => {
       const v = fields[k]
       if (typeof v !== 'string' || !v) return undefined
@@ -52,6 +46,47 @@ export async function readUpload(event: H3Event): Promise<Upload> {
   if (data.length > MAX_TABLE_BYTES) throw tooLarge()
   const { content: _content, fileName, ...fields } = body
   return { fileName: typeof fileName === 'string' ? fileName : 'table', data, fields }
+}
+
+/**
+ * Stream a multipart body through busboy: the part named `file` is the
+ * table (held once, as one Buffer), every other text part a field. A file
+ * over the size limit is refused with 413 as soon as it passes the limit.
+ */
+function readMultipart(event: H3Event): Promise<{ file: { fileName: string, data: Buffer } | null, fields: Record<string, string> }> {
+  const req = event.node.req
+  return new Promise((resolve, reject) => {
+    let parser: Busboy.Busboy
+    try {
+      parser = Busboy({ headers: req.headers, limits: { fileSize: MAX_TABLE_BYTES, fieldSize: 1024 * 1024, fields: 100 } })
+    }
+    catch (e) {
+      reject(httpError(400, 'invalid_input', `Invalid upload: ${e instanceof Error ? e.message : String(e)}.`, { issues: [{ field: 'file', message: 'Not a readable multipart body.' }] }))
+      return
+    }
+    const fields: Record<string, string> = {}
+    let file: { fileName: string, data: Buffer } | null = null
+    let failed = false
+    const fail = (e: unknown) => {
+      if (failed) return
+      failed = true
+      req.unpipe(parser)
+      req.resume() // drain what is left so the answer can be sent
+      reject(e)
+    }
+    parser.on('field', (name, value) => { fields[name] = value })
+    parser.on('file', (name, stream, info) => {
+      if (name !== 'file') { stream.resume(); return }
+      const parts: Buffer[] = []
+      stream.on('data', (b: Buffer) => parts.push(b))
+      stream.on('limit', () => fail(tooLarge()))
+      stream.on('end', () => { if (!failed) file = { fileName: info.filename || 'table', data: Buffer.concat(parts) } })
+    })
+    parser.on('error', (e: unknown) => fail(httpError(400, 'invalid_input', `Invalid upload: ${e instanceof Error ? e.message : String(e)}.`, { issues: [{ field: 'file', message: 'Not a readable multipart body.' }] })))
+    parser.on('close', () => { if (!failed) resolve({ file, fields }) })
+    req.on('error', fail)
+    req.pipe(parser)
+  })
 }
 
 export function submissionFields(upload: Upload): SubmissionFields {
@@ -94,6 +129,8 @@ export function resolveMapping(set: ReferenceSet, table: ParsedTable, mapping: R
 
 type StoredResult = typeof schema.caseResults.$inferInsert
 
+const EMPTY_FIELD = { raw: '', kind: 'empty' } as const
+
 const key = (s: string | null | undefined) => (s === null || s === undefined || s === '' ? null : Number(s))
 
 /**
@@ -125,9 +162,10 @@ export function judgeTable(set: ReferenceSet, cases: CaseToJudge[], table: Parse
     }
     for (const s of specs) if (inputs[s.name] === undefined && s.default !== undefined) inputs[s.name] = s.default
     const f = r.fields[index.value!]
-    return { inputs, measured: f ? { raw: f.raw, kind: f.kind, value: f.value, sign: f.sign } : { raw: '', kind: 'empty' as const } }
+    return { inputs, measured: f ?? EMPTY_FIELD }
   })
-  const runCases = cases.map(c => ({ key: c.inputKey, inputs: c.inputs, region: c.region, reference: { value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' } }))
+  // inputs through a getter: judging reads them only when a case's region must be worked out again
+  const runCases = cases.map(c => ({ key: c.inputKey, get inputs() { return c.inputs }, region: c.region, reference: { value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' } }))
   const lineOf = (rowIndex: number | null) => (rowIndex === null ? null : table.rows[rowIndex]!.line)
   const toStored = (r: RunResult): StoredResult => {
     const c = r.caseIndex === null ? null : cases[r.caseIndex]!
@@ -145,8 +183,8 @@ export function judgeTable(set: ReferenceSet, cases: CaseToJudge[], table: Parse
     const steps = judgeRunInChunks(set.functionId, runCases, rows, set.criterion as Criterion, chunkSize)
     for (let step = steps.next(); ; step = steps.next()) {
       if (step.done) {
-        const { results, summary } = step.value
-        return { summary, worst: summary.worst ? toStored(results[summary.worst.index]!) : null }
+        const { summary, worst } = step.value
+        return { summary, worst: worst ? toStored(worst) : null }
       }
       yield step.value.map(toStored)
     }
@@ -154,13 +192,37 @@ export function judgeTable(set: ReferenceSet, cases: CaseToJudge[], table: Parse
   return { chunks: chunks() }
 }
 
-const c = schema.cases
-const caseColumns = { id: c.id, inputs: c.inputs, inputKey: c.inputKey, referenceValue: c.referenceValue, certifiedDigits: c.certifiedDigits, conditionNumber: c.conditionNumber, region: c.region }
-export type CaseToJudge = Pick<typeof schema.cases.$inferSelect, keyof typeof caseColumns>
+/**
+ * A set's case as judging needs it. The inputs stay JSON text until asked
+ * for: judging reads the stored region, so they are parsed only for a case
+ * whose region must be worked out again.
+ */
+export class CaseToJudge {
+  constructor(
+    readonly id: number,
+    private readonly inputsJson: string,
+    readonly inputKey: string,
+    readonly referenceValue: string,
+    readonly certifiedDigits: number,
+    readonly conditionNumber: string | null,
+    readonly region: string,
+  ) {}
 
-/** A set's cases in order, with only what judging needs. */
+  get inputs(): Record<string, string> {
+    return JSON.parse(this.inputsJson) as Record<string, string>
+  }
+}
+
+const CASES_SQL = 'SELECT id, inputs, input_key, reference_value, certified_digits, condition_number, region FROM cases WHERE set_id = ? ORDER BY ordinal'
+
+/**
+ * A set's cases in order, with only what judging needs: one plain query
+ * returning arrays of text, so 100,000 cases come in without building an
+ * object per column or parsing JSON (server/database/schema.ts, table cases).
+ */
 export async function loadCases(setId: number): Promise<CaseToJudge[]> {
-  return useDb().select(caseColumns).from(c).where(eq(c.setId, setId)).orderBy(asc(c.ordinal))
+  const [rows] = await usePool().query({ sql: CASES_SQL, values: [setId], rowsAsArray: true, typeCast: (field, next) => (field.type === 'JSON' || field.type === 'BLOB' ? field.string() : next()) })
+  return (rows as Array<[number, string, string, string, number, string | null, string]>).map(r => new CaseToJudge(Number(r[0]), r[1], r[2], r[3], r[4], r[5], r[6]))
 }
 
 export const sha256Hex = (data: Uint8Array) => createHash('sha256').update(data).digest('hex')

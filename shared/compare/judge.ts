@@ -79,7 +79,18 @@ function noErrors(verdict: CaseVerdict, decidedBy: string, region: string): Case
 export function judgeCase(reference: ReferenceValue, measured: MeasuredValue, criterion: Criterion | CompiledCriterion,
   inputs: Record<string, string>, opts: JudgeOptions = {}): CaseJudgement {
   const cc = asCompiled(criterion)
-  const rule = regionRule(cc, { inputs, region: opts.region })
+  return judgeUnderRule(reference, measured, cc, regionRule(cc, { inputs, region: opts.region }))
+}
+
+/**
+ * Judge one case of a set: like judgeCase, but `inputs` is read only when
+ * the stored region is not one of the criterion's (so it may be a getter).
+ */
+export function judgeSetCase(cs: { reference: ReferenceValue; inputs: Record<string, string>; region?: string }, measured: MeasuredValue, cc: CompiledCriterion): CaseJudgement {
+  return judgeUnderRule(cs.reference, measured, cc, regionRule(cc, cs))
+}
+
+function judgeUnderRule(reference: ReferenceValue, measured: MeasuredValue, cc: CompiledCriterion, rule: { name: string; tolerance: CompiledTolerance }): CaseJudgement {
   const region = rule.name
   switch (measured.kind) {
     case 'nan': return noErrors(cc.nanVerdict, 'nan-rule', region)

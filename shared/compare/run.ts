@@ -9,9 +9,9 @@
 import type { Verdict } from '../domain/enums'
 import type { Criterion } from '../schemas/criterion'
 import { compileCriterion } from './criterion'
-import { judgeCase, type MeasuredValue, type ReferenceValue } from './judge'
+import { judgeSetCase, type MeasuredValue, type ReferenceValue } from './judge'
 import { matchRows } from './match'
-import { summarizeRun, type RunSummary } from './summary'
+import { RunSummarizer, type RunSummary } from './summary'
 
 export interface RunCase { key: string; inputs: Record<string, string>; reference: ReferenceValue; region?: string }
 export interface RunRow { inputs: Record<string, string>; measured: MeasuredValue }
@@ -37,23 +37,34 @@ function blank(verdict: Verdict, decidedBy: string, caseIndex: number | null, ro
 
 /** Judge every case of a run and summarise it; see the file header for the order and the rules. */
 export function judgeRun(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion): { results: RunResult[]; summary: RunSummary } {
+  const results: RunResult[] = []
   const steps = judgeRunInChunks(functionId, cases, rows, criterion)
-  for (let step = steps.next(); ; step = steps.next()) if (step.done) return step.value
+  for (let step = steps.next(); ; step = steps.next()) {
+    if (step.done) return { results, summary: step.value.summary }
+    for (const r of step.value) results.push(r)
+  }
 }
 
 /**
  * The same judging, handed out in chunks of about `chunkSize` results as they
- * are made, so a caller can store one chunk while the next is judged. Each
- * yielded chunk continues the results array in order; the generator returns
- * every result and the summary once all are judged.
+ * are made, so a caller can store one chunk while the next is judged. The
+ * chunks, in order, are the run's results; the generator keeps none of them
+ * (the summary is gathered as they are made) and returns the summary and the
+ * worst result.
  */
-export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion, chunkSize = 5000): Generator<RunResult[], { results: RunResult[]; summary: RunSummary }> {
+export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion, chunkSize = 5000): Generator<RunResult[], { summary: RunSummary; worst: RunResult | null }> {
   const cc = compileCriterion(criterion)
   const m = matchRows(cases, rows, functionId)
-  const results: RunResult[] = []
-  let handedOut = 0
-  const full = () => results.length - handedOut >= chunkSize
-  const take = () => results.slice(handedOut, (handedOut = results.length))
+  const summarizer = new RunSummarizer()
+  let worst: RunResult | null = null
+  let chunk: RunResult[] = []
+  const push = (r: RunResult) => {
+    summarizer.add(r)
+    if (summarizer.worstIndex === summarizer.size - 1) worst = r
+    chunk.push(r)
+  }
+  const full = () => chunk.length >= chunkSize
+  const take = () => { const c = chunk; chunk = []; return c }
   let next = 0
   for (const i of m.missing) {
     // Interleave matched and missing cases back into case order.
@@ -62,7 +73,7 @@ export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[],
       if (full()) yield take()
     }
     const cs = cases[i]!
-    results.push(blank('missing', 'no-row', i, null, cs.key, null, cs.region))
+    push(blank('missing', 'no-row', i, null, cs.key, null, cs.region))
     if (full()) yield take()
   }
   while (next < m.matched.length) {
@@ -71,16 +82,16 @@ export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[],
   }
   for (const d of m.duplicate) {
     const cs = cases[d.caseIndex]!
-    results.push(blank('duplicate', `duplicate-of-row:${d.firstRowIndex}`, d.caseIndex, d.rowIndex, cs.key, rows[d.rowIndex]!.measured.raw, cs.region))
+    push(blank('duplicate', `duplicate-of-row:${d.firstRowIndex}`, d.caseIndex, d.rowIndex, cs.key, rows[d.rowIndex]!.measured.raw, cs.region))
   }
-  for (const u of m.unexpected) results.push(blank('unexpected', u.key === null ? 'unreadable-inputs' : 'no-case', null, u.rowIndex, u.key, rows[u.rowIndex]!.measured.raw))
-  if (results.length > handedOut) yield take()
-  return { results, summary: summarizeRun(results) }
+  for (const u of m.unexpected) push(blank('unexpected', u.key === null ? 'unreadable-inputs' : 'no-case', null, u.rowIndex, u.key, rows[u.rowIndex]!.measured.raw))
+  if (chunk.length > 0) yield take()
+  return { summary: summarizer.finish(), worst }
 
   function pushMatched({ caseIndex, rowIndex }: { caseIndex: number; rowIndex: number }): void {
     const cs = cases[caseIndex]!
     const row = rows[rowIndex]!
-    const j = judgeCase(cs.reference, row.measured, cc, cs.inputs, cs.region === undefined ? {} : { region: cs.region })
-    results.push({ caseIndex, rowIndex, key: cs.key, region: j.region, measured: row.measured.raw, verdict: j.verdict, decidedBy: j.decidedBy, absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed })
+    const j = judgeSetCase(cs, row.measured, cc)
+    push({ caseIndex, rowIndex, key: cs.key, region: j.region, measured: row.measured.raw, verdict: j.verdict, decidedBy: j.decidedBy, absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed })
   }
 }

@@ -78,82 +78,131 @@ function fromKey(k: number): [number, number] {
 const JUDGED = new Set<Verdict>(['pass', 'fail', 'accepted'])
 const RANK: Partial<Record<Verdict, number>> = { non_finite: 2, fail: 1, accepted: 1, pass: 0 }
 
-/** The figures for one list of results (indices refer to the run's list). */
-function figures(results: readonly RunCaseResult[], indices: readonly number[]): Figures {
-  const counts = { pass: 0, fail: 0, missing: 0, unexpected: 0, non_finite: 0, duplicate: 0, accepted: 0 } as Record<Verdict, number>
-  for (const v of VERDICTS) counts[v] = 0
-  const n = indices.length
-  const relM = new Float64Array(n)
-  const relE = new Float64Array(n)
-  const relK = new Float64Array(n)
-  let nRel = 0
-  let maxUk = -Infinity
-  let maxU: string | null = null
-  let worst = -1
-  let wRank = -1
-  let wRk = -Infinity
-  let wAk = -Infinity
-  const tmp = new Float64Array(2)
-  for (const i of indices) {
-    const r = results[i]!
-    counts[r.verdict]++
+/** Figures of one group of results (the run, or one region), gathered one result at a time. */
+class FigureAccumulator {
+  private counts = { pass: 0, fail: 0, missing: 0, unexpected: 0, non_finite: 0, duplicate: 0, accepted: 0 } as Record<Verdict, number>
+  private total = 0
+  private relM = new Float64Array(1024)
+  private relE = new Float64Array(1024)
+  private relK = new Float64Array(1024)
+  private nRel = 0
+  private maxUk = -Infinity
+  private maxU: string | null = null
+  private worst: WorstCase | null = null
+  private wRank = -1
+  private wRk = -Infinity
+  private wAk = -Infinity
+
+  constructor() {
+    for (const v of VERDICTS) this.counts[v] = 0
+  }
+
+  add(r: RunCaseResult, index: number, tmp: Float64Array): void {
+    this.total++
+    this.counts[r.verdict]++
     const judged = JUDGED.has(r.verdict)
     let rk = -Infinity
     if (split(r.relError, tmp)) {
       rk = keyOf(tmp[0]!, tmp[1]!)
-      if (judged) { relM[nRel] = tmp[0]!; relE[nRel] = tmp[1]!; relK[nRel] = rk; nRel++ }
+      if (judged) {
+        if (this.nRel === this.relM.length) this.grow()
+        this.relM[this.nRel] = tmp[0]!
+        this.relE[this.nRel] = tmp[1]!
+        this.relK[this.nRel] = rk
+        this.nRel++
+      }
     }
     if (judged && split(r.ulps, tmp)) {
       const k = keyOf(tmp[0]!, tmp[1]!)
-      if (maxU === null || k > maxUk) { maxUk = k; maxU = fmt(tmp[0]!, tmp[1]!) }
+      if (this.maxU === null || k > this.maxUk) { this.maxUk = k; this.maxU = fmt(tmp[0]!, tmp[1]!) }
     }
     const rank = RANK[r.verdict]
-    if (rank === undefined) continue
+    if (rank === undefined) return
     const ak = split(r.absError, tmp) ? keyOf(tmp[0]!, tmp[1]!) : -Infinity
-    if (rank > wRank || (rank === wRank && (rk > wRk || (rk === wRk && ak > wAk)))) { worst = i; wRank = rank; wRk = rk; wAk = ak }
+    if (rank > this.wRank || (rank === this.wRank && (rk > this.wRk || (rk === this.wRk && ak > this.wAk)))) {
+      this.worst = { index, key: r.key, verdict: r.verdict, relError: r.relError, absError: r.absError ?? null, ulps: r.ulps, region: r.region }
+      this.wRank = rank
+      this.wRk = rk
+      this.wAk = ak
+    }
   }
-  let maxRel: string | null = null
-  let median: string | null = null
-  let rms: string | null = null
-  if (nRel > 0) {
-    let top = 0
-    for (let j = 1; j < nRel; j++) if (relK[j]! > relK[top]!) top = j
-    maxRel = fmt(relM[top]!, relE[top]!)
-    const keys = relK.subarray(0, nRel).sort()
-    const [am, ae] = fromKey(keys[(nRel - 1) >> 1]!)
-    const [bm, be] = fromKey(keys[nRel >> 1]!)
-    const E = Math.max(ae, be)
-    median = fmt(Number(((am * 10 ** (ae - E) + bm * 10 ** (be - E)) / 2).toPrecision(12)), E)
-    // RMS = M·sqrt(Σ (x/M)² / n) with M = 10^(top exponent), so nothing overflows.
-    const T = relE[top]!
-    const TM = relM[top]!
-    let s = 0
-    if (TM > 0) for (let j = 0; j < nRel; j++) { const y = (relM[j]! / TM) * 10 ** (relE[j]! - T); s += y * y }
-    rms = fmt(TM * Math.sqrt(s / nRel), T)
+
+  get worstIndex(): number {
+    return this.worst ? this.worst.index : -1
   }
-  const w = worst >= 0 ? results[worst]! : null
-  return {
-    total: n,
-    counts,
-    maxRelError: maxRel,
-    medianRelError: median,
-    rmsRelError: rms,
-    maxUlps: maxU,
-    worst: w ? { index: worst, key: w.key, verdict: w.verdict, relError: w.relError, absError: w.absError ?? null, ulps: w.ulps, region: w.region } : null,
+
+  private grow(): void {
+    const n = this.relM.length * 2
+    const m = new Float64Array(n); m.set(this.relM); this.relM = m
+    const e = new Float64Array(n); e.set(this.relE); this.relE = e
+    const k = new Float64Array(n); k.set(this.relK); this.relK = k
+  }
+
+  finish(): Figures {
+    const { nRel, relM, relE, relK } = this
+    let maxRel: string | null = null
+    let median: string | null = null
+    let rms: string | null = null
+    if (nRel > 0) {
+      let top = 0
+      for (let j = 1; j < nRel; j++) if (relK[j]! > relK[top]!) top = j
+      maxRel = fmt(relM[top]!, relE[top]!)
+      const keys = relK.slice(0, nRel).sort()
+      const [am, ae] = fromKey(keys[(nRel - 1) >> 1]!)
+      const [bm, be] = fromKey(keys[nRel >> 1]!)
+      const E = Math.max(ae, be)
+      median = fmt(Number(((am * 10 ** (ae - E) + bm * 10 ** (be - E)) / 2).toPrecision(12)), E)
+      // RMS = M·sqrt(Σ (x/M)² / n) with M = 10^(top exponent), so nothing overflows.
+      const T = relE[top]!
+      const TM = relM[top]!
+      let s = 0
+      if (TM > 0) for (let j = 0; j < nRel; j++) { const y = (relM[j]! / TM) * 10 ** (relE[j]! - T); s += y * y }
+      rms = fmt(TM * Math.sqrt(s / nRel), T)
+    }
+    return { total: this.total, counts: { ...this.counts }, maxRelError: maxRel, medianRelError: median, rmsRelError: rms, maxUlps: this.maxU, worst: this.worst }
+  }
+}
+
+/**
+ * A run's summary gathered as its results are made, in order, so that the
+ * results themselves need not be kept: the same figures as summarizeRun.
+ */
+export class RunSummarizer {
+  private all = new FigureAccumulator()
+  private regions = new Map<string, FigureAccumulator>()
+  private tmp = new Float64Array(2)
+  private count = 0
+
+  /** How many results were added. */
+  get size(): number {
+    return this.count
+  }
+
+  /** Add the next result (its index in the run is the number added before it). */
+  add(r: RunCaseResult): void {
+    const index = this.count++
+    this.all.add(r, index, this.tmp)
+    if (r.region === undefined) return
+    let g = this.regions.get(r.region)
+    if (!g) this.regions.set(r.region, (g = new FigureAccumulator()))
+    g.add(r, index, this.tmp)
+  }
+
+  /** Index of the run's worst result so far (−1 before any). */
+  get worstIndex(): number {
+    return this.all.worstIndex
+  }
+
+  finish(): RunSummary {
+    const regions: Record<string, Figures> = {}
+    for (const [name, g] of this.regions) regions[name] = g.finish()
+    return { ...this.all.finish(), regions }
   }
 }
 
 /** Summarise a run's results (one entry per case or extra row). */
 export function summarizeRun(results: readonly RunCaseResult[]): RunSummary {
-  const all = results.map((_, i) => i)
-  const byRegion = new Map<string, number[]>()
-  results.forEach((r, i) => {
-    if (r.region === undefined) return
-    const g = byRegion.get(r.region)
-    if (g) g.push(i)
-    else byRegion.set(r.region, [i])
-  })
-  const regions: Record<string, Figures> = {}
-  for (const [name, idx] of byRegion) regions[name] = figures(results, idx)
-  return { ...figures(results, all), regions }
+  const s = new RunSummarizer()
+  for (const r of results) s.add(r)
+  return s.finish()
 }

@@ -11,6 +11,7 @@ import { parseDecimal } from '../compare/exact-ops'
 import { CATALOGUE, isFunctionId } from '../reference/catalogue'
 
 const PLAIN_LIMIT = 24
+const CANONICAL_PLAIN = /^-?(?:0|[1-9]\d*)(?:\.\d*[1-9])?$/
 
 /** The canonical text of an exact decimal: plain notation near 1, else `<integer>e<exp>`. */
 export function canonicalDecimal(x: ExactDecimal): string {
@@ -28,6 +29,10 @@ export function canonicalDecimal(x: ExactDecimal): string {
 
 /** Canonical text of a decimal string (throws DomainError when it is not a decimal). */
 export function canonicalValue(text: string, param = 'value'): string {
+  // Already canonical (the common case when matching rows): a plain decimal
+  // without a plus sign, leading or trailing zeros, or "-0". Short enough
+  // that canonicalDecimal keeps plain notation (PLAIN_LIMIT).
+  if (text.length <= PLAIN_LIMIT && CANONICAL_PLAIN.test(text) && text !== '-0') return text
   const x = parseDecimal(text)
   if (x === null) return canonicalDecimal(parseExactDecimal(text, param)) // throws the engine's message
   return canonicalDecimal(x)

@@ -145,6 +145,22 @@ describe('submissions', () => {
     expect(r.status).toBe(413)
   })
 
+  it('refuses a multipart body without a boundary, or without the file, with 400 and stores nothing', async () => {
+    const before = await dbCount('SELECT COUNT(*) AS n FROM runs', [])
+    const noBoundary = await fetch(`${qa.base}/api/runs`, { method: 'POST', body: 'code=oscillite', headers: { 'content-type': 'multipart/form-data', origin: qa.base, cookie: qa.cookie } })
+    expect(noBoundary.status).toBe(400)
+    expect((await noBoundary.json()).data.code).toBe('invalid_input')
+    const form = new FormData()
+    form.append('code', 'oscillite')
+    form.append('version', unique('nofile'))
+    form.append('setId', String(set.id))
+    form.append('table', new Blob([table(honest)]), 'wrong-field.csv')
+    const noFile = await fetch(`${qa.base}/api/runs`, { method: 'POST', body: form, headers: { origin: qa.base, cookie: qa.cookie } })
+    expect(noFile.status).toBe(400)
+    expect((await noFile.json()).data.issues).toEqual([{ field: 'file', message: 'Attach the output table.' }])
+    expect(await dbCount('SELECT COUNT(*) AS n FROM runs', [])).toBe(before)
+  })
+
   it('recognises the same file for the same version and set, and stores it once', async () => {
     const version = unique('dup-t')
     const content = table(honest)

@@ -4,8 +4,8 @@
  * = 5, so |x| = 3 at n = 4 is not greater than the bound.
  */
 import { describe, expect, it } from 'vitest'
-import { judgeCase } from '../../../shared/compare/judge'
-import { regionOf } from '../../../shared/compare/criterion'
+import { judgeCase, judgeSetCase } from '../../../shared/compare/judge'
+import { compileCriterion, regionOf } from '../../../shared/compare/criterion'
 import { parseExpression, expressionNames } from '../../../shared/compare/expression'
 import { RegionError } from '../../../shared/compare/regions'
 import type { Region } from '../../../shared/schemas/criterion'
@@ -46,6 +46,17 @@ describe('the region decides the bound and is named in decidedBy', () => {
 
   it('uses a stored region name without re-evaluating the inputs', () => {
     expect(judgeCase(exactRef('1'), cell(ONE_PLUS_2ULP), c, { n: '4', x: '3' }, { region: 'tail' }).decidedBy).toBe('region:tail/ulps')
+  })
+
+  it('reads a set case\'s inputs only when its stored region is not one of the criterion\'s', () => {
+    const cc = compileCriterion(c)
+    let reads = 0
+    const setCase = (region: string) => ({ reference: exactRef('1'), region, get inputs() { reads++; return { n: '4', x: '3.5' } } })
+    expect(judgeSetCase(setCase('tail'), cell(ONE_PLUS_2ULP), cc).decidedBy).toBe('region:tail/ulps')
+    expect(reads).toBe(0)
+    // a region name the criterion no longer has: worked out again from the inputs
+    expect(judgeSetCase(setCase('gone'), cell(ONE_PLUS_2ULP), cc).region).toBe('tail')
+    expect(reads).toBe(1)
   })
 })
 

@@ -3,7 +3,8 @@
  * spelling, and different values never collide.
  */
 import { describe, expect, it } from 'vitest'
-import { canonicalValue, inputKey } from '../../../shared/grid/keys'
+import { canonicalDecimal, canonicalValue, inputKey } from '../../../shared/grid/keys'
+import { parseExactDecimal } from '../../../shared/numeric/exact'
 
 describe('canonicalValue', () => {
   it.each([
@@ -15,6 +16,19 @@ describe('canonicalValue', () => {
     ['0.1000000000000000055511151231257827', '0.1000000000000000055511151231257827'],
   ])('%s → %s', (text, canonical) => {
     expect(canonicalValue(text)).toBe(canonical)
+  })
+
+  it('gives text that is already canonical back unchanged, and the same as the full path for near misses', () => {
+    // the short-cut for canonical text must agree with parsing and re-printing
+    const full = (t: string) => canonicalDecimal(parseExactDecimal(t))
+    const texts = ['0', '-0', '7', '-7', '10', '100', '0.5', '-0.25', '0.001', '12.5', '012', '1.0', '-0.0', '+1',
+      '100000000000000000000000', '1000000000000000000000000', '0.0000000000000000000001', '0.00000000000000000000001',
+      '12345678901234567890123.5', '1.', '.5', '-.5']
+    for (let k = 0; k < 400; k++) {
+      const i = Math.floor(Math.random() * 2000) - 1000
+      texts.push(String(i / 100), String(i), (i / 7).toString(), (i * 1e-9).toString())
+    }
+    for (const t of texts) expect(canonicalValue(t), t).toBe(full(t))
   })
 
   it('refuses text that is not a decimal', () => {
