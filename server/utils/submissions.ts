@@ -7,9 +7,11 @@ import type { H3Event } from 'h3'
 import Busboy from 'busboy'
 import { and, eq } from 'drizzle-orm'
 import { MAX_TABLE_BYTES, parseTable, type ParsedTable } from '../../shared/parse'
-import { judgeRunInChunks, type RunResult } from '../../shared/compare/run'
+import { judgeRunInChunks, type RunCase, type RunResult, type RunRows } from '../../shared/compare/run'
+import type { ReferenceValue } from '../../shared/compare/judge'
 import type { summarizeRun } from '../../shared/compare'
 import { CATALOGUE, isFunctionId } from '../../shared/reference'
+import { inputKey, isCanonicalPlain } from '../../shared/grid/keys'
 import { submissionSchema, type SubmissionFields } from '../../shared/schemas/submission'
 import type { Criterion } from '../../shared/schemas/criterion'
 import type { ReferenceSet } from '../database/schema'
@@ -153,34 +155,41 @@ export interface JudgedSummary {
 export function judgeTable(set: ReferenceSet, cases: CaseToJudge[], table: ParsedTable, index: Record<string, number>, chunkSize = 5000): JudgedRun {
   const params = Object.keys(index).filter(k => k !== 'value')
   const specs = isFunctionId(set.functionId) ? CATALOGUE[set.functionId].parameters : []
-  const rows = table.rows.map((r) => {
+  const functionId = set.functionId
+  // A row's inputs, built when asked for (to match it, and to store a row that matches no case).
+  const inputsOf = (rowIndex: number) => {
+    const fields = table.rows[rowIndex]!.fields
     const inputs: Record<string, string> = {}
     // inputs by their exact value, so 0x1p-1, 5.0D-01 and 0.5 all name the case x = 0.5
     for (const p of params) {
-      const f = r.fields[index[p]!]
-      inputs[p] = f?.kind === 'number' && f.value !== undefined ? f.value : f?.raw ?? ''
+      const f = fields[index[p]!]
+      // (text already in canonical form is kept as written, which spares matching from re-reading it)
+      inputs[p] = f?.kind === 'number' && f.value !== undefined ? (isCanonicalPlain(f.raw) ? f.raw : f.value) : f?.raw ?? ''
     }
     for (const s of specs) if (inputs[s.name] === undefined && s.default !== undefined) inputs[s.name] = s.default
-    const f = r.fields[index.value!]
-    return { inputs, measured: f ?? EMPTY_FIELD }
-  })
-  // inputs through a getter: judging reads them only when a case's region must be worked out again
-  const runCases = cases.map(c => ({ key: c.inputKey, get inputs() { return c.inputs }, region: c.region, reference: { value: c.referenceValue, digits: c.certifiedDigits, kappa: c.conditionNumber, exact: c.referenceValue === '0' } }))
+    return inputs
+  }
+  const valueColumn = index.value!
+  const rows: RunRows = {
+    length: table.rows.length,
+    key: i => inputKey(inputsOf(i), functionId),
+    measured: i => table.rows[i]!.fields[valueColumn] ?? EMPTY_FIELD,
+  }
   const lineOf = (rowIndex: number | null) => (rowIndex === null ? null : table.rows[rowIndex]!.line)
   const toStored = (r: RunResult): StoredResult => {
     const c = r.caseIndex === null ? null : cases[r.caseIndex]!
-    const dup = /^duplicate-of-row:(\d+)$/.exec(r.decidedBy)
+    const dup = r.verdict === 'duplicate' ? /^duplicate-of-row:(\d+)$/.exec(r.decidedBy) : null
     return {
       runId: 0, caseId: c?.id ?? null, lineNumber: lineOf(r.rowIndex),
       // a case's inputs live with the case; only rows that match no case keep their own
-      inputs: c ? null : (r.rowIndex === null ? null : rows[r.rowIndex]!.inputs), measured: r.measured,
+      inputs: c ? null : (r.rowIndex === null ? null : inputsOf(r.rowIndex)), measured: r.measured,
       absError: r.absError, relError: r.relError, ulps: r.ulps, digitsAgreed: r.digitsAgreed === null ? null : String(r.digitsAgreed),
       region: r.region ?? null, relErrorKey: key(r.relError), absErrorKey: key(r.absError), ulpsKey: key(r.ulps),
       verdict: r.verdict, decidedBy: dup ? `repeats line ${lineOf(Number(dup[1]))}` : r.decidedBy.slice(0, 60),
     }
   }
   function* chunks(): Generator<StoredResult[], JudgedSummary> {
-    const steps = judgeRunInChunks(set.functionId, runCases, rows, set.criterion as Criterion, chunkSize)
+    const steps = judgeRunInChunks(functionId, cases, rows, set.criterion as Criterion, chunkSize)
     for (let step = steps.next(); ; step = steps.next()) {
       if (step.done) {
         const { summary, worst } = step.value
@@ -197,7 +206,7 @@ export function judgeTable(set: ReferenceSet, cases: CaseToJudge[], table: Parse
  * for: judging reads the stored region, so they are parsed only for a case
  * whose region must be worked out again.
  */
-export class CaseToJudge {
+export class CaseToJudge implements RunCase {
   constructor(
     readonly id: number,
     private readonly inputsJson: string,
@@ -210,6 +219,15 @@ export class CaseToJudge {
 
   get inputs(): Record<string, string> {
     return JSON.parse(this.inputsJson) as Record<string, string>
+  }
+
+  get key(): string {
+    return this.inputKey
+  }
+
+  /** Made when the case is judged, and dropped after. */
+  get reference(): ReferenceValue {
+    return { value: this.referenceValue, digits: this.certifiedDigits, kappa: this.conditionNumber, exact: this.referenceValue === '0' }
   }
 }
 

@@ -9,4 +9,4 @@ export { summarizeRun, type Figures, type RunCaseResult, type RunSummary, type W
 export { DEFAULT_REGION, RegionError } from './regions'
 export { parseExpression, expressionNames, ExpressionError, type Expr } from './expression'
 export { referenceFromOutput } from './reference'
-export { judgeRun, judgeRunInChunks, type RunCase, type RunResult, type RunRow } from './run'
+export { judgeRun, judgeRunInChunks, rowsOf, type RunCase, type RunResult, type RunRow, type RunRows } from './run'

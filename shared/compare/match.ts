@@ -20,30 +20,51 @@ export interface MatchResult {
   unexpected: Array<{ rowIndex: number; key: string | null; reason: string }>
 }
 
-/** Match rows to cases; `cases[i].key` must come from inputKey(inputs, functionId). */
-export function matchRows(cases: ReadonlyArray<{ key: string }>, rows: ReadonlyArray<{ inputs: Record<string, string> }>, functionId: string): MatchResult {
+/** The same buckets, with the matched rows as one array: rowOfCase[caseIndex] is the judged row, or −1 (missing). */
+export interface KeyMatch {
+  rowOfCase: Int32Array
+  duplicate: MatchResult['duplicate']
+  unexpected: MatchResult['unexpected']
+}
+
+/**
+ * Match `rowCount` rows, known by their keys, to cases; `keyOf(rowIndex)`
+ * gives a row's key from inputKey, or throws when its inputs can't be read.
+ * Keys are asked for one row at a time, so rows need not exist as objects.
+ */
+export function matchByKey(cases: ReadonlyArray<{ key: string }>, rowCount: number, keyOf: (rowIndex: number) => string): KeyMatch {
   const byKey = new Map<string, number>()
-  cases.forEach((c, i) => { if (!byKey.has(c.key)) byKey.set(c.key, i) })
-  const firstRow = new Int32Array(cases.length).fill(-1)
-  const out: MatchResult = { matched: [], duplicate: [], missing: [], unexpected: [] }
-  rows.forEach((row, rowIndex) => {
+  for (let i = 0; i < cases.length; i++) {
+    const k = cases[i]!.key
+    if (!byKey.has(k)) byKey.set(k, i)
+  }
+  const rowOfCase = new Int32Array(cases.length).fill(-1)
+  const out: KeyMatch = { rowOfCase, duplicate: [], unexpected: [] }
+  for (let rowIndex = 0; rowIndex < rowCount; rowIndex++) {
     let key: string
     try {
-      key = inputKey(row.inputs, functionId)
+      key = keyOf(rowIndex)
     } catch (e) {
       out.unexpected.push({ rowIndex, key: null, reason: `inputs cannot be read: ${(e as Error).message}` })
-      return
+      continue
     }
     const caseIndex = byKey.get(key)
     if (caseIndex === undefined) {
       out.unexpected.push({ rowIndex, key, reason: 'no case of the set has these inputs' })
-      return
+      continue
     }
-    const first = firstRow[caseIndex]!
+    const first = rowOfCase[caseIndex]!
     if (first >= 0) out.duplicate.push({ caseIndex, rowIndex, firstRowIndex: first })
-    else firstRow[caseIndex] = rowIndex
-  })
-  firstRow.forEach((rowIndex, caseIndex) => {
+    else rowOfCase[caseIndex] = rowIndex
+  }
+  return out
+}
+
+/** Match rows to cases; `cases[i].key` must come from inputKey(inputs, functionId). */
+export function matchRows(cases: ReadonlyArray<{ key: string }>, rows: ReadonlyArray<{ inputs: Record<string, string> }>, functionId: string): MatchResult {
+  const m = matchByKey(cases, rows.length, i => inputKey(rows[i]!.inputs, functionId))
+  const out: MatchResult = { matched: [], duplicate: m.duplicate, missing: [], unexpected: m.unexpected }
+  m.rowOfCase.forEach((rowIndex, caseIndex) => {
     if (rowIndex < 0) out.missing.push(caseIndex)
     else out.matched.push({ caseIndex, rowIndex })
   })

@@ -10,11 +10,28 @@ import type { Verdict } from '../domain/enums'
 import type { Criterion } from '../schemas/criterion'
 import { compileCriterion } from './criterion'
 import { judgeSetCase, type MeasuredValue, type ReferenceValue } from './judge'
-import { matchRows } from './match'
+import { matchByKey } from './match'
+import { inputKey } from '../grid/keys'
 import { RunSummarizer, type RunSummary } from './summary'
 
 export interface RunCase { key: string; inputs: Record<string, string>; reference: ReferenceValue; region?: string }
 export interface RunRow { inputs: Record<string, string>; measured: MeasuredValue }
+
+/**
+ * A table's rows as judging reads them, one row at a time, so that a large
+ * table need not be copied into row objects: `key(i)` is the canonical key
+ * of row i's inputs (throws when they can't be read), `measured(i)` its value.
+ */
+export interface RunRows {
+  readonly length: number
+  key(rowIndex: number): string
+  measured(rowIndex: number): MeasuredValue
+}
+
+/** RunRows over an array of row objects. */
+export function rowsOf(rows: readonly RunRow[], functionId: string): RunRows {
+  return { length: rows.length, key: i => inputKey(rows[i]!.inputs, functionId), measured: i => rows[i]!.measured }
+}
 
 export interface RunResult {
   caseIndex: number | null
@@ -36,7 +53,7 @@ function blank(verdict: Verdict, decidedBy: string, caseIndex: number | null, ro
 }
 
 /** Judge every case of a run and summarise it; see the file header for the order and the rules. */
-export function judgeRun(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion): { results: RunResult[]; summary: RunSummary } {
+export function judgeRun(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[] | RunRows, criterion: Criterion): { results: RunResult[]; summary: RunSummary } {
   const results: RunResult[] = []
   const steps = judgeRunInChunks(functionId, cases, rows, criterion)
   for (let step = steps.next(); ; step = steps.next()) {
@@ -52,9 +69,10 @@ export function judgeRun(functionId: string, cases: readonly RunCase[], rows: re
  * (the summary is gathered as they are made) and returns the summary and the
  * worst result.
  */
-export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[], rows: readonly RunRow[], criterion: Criterion, chunkSize = 5000): Generator<RunResult[], { summary: RunSummary; worst: RunResult | null }> {
+export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[], rowList: readonly RunRow[] | RunRows, criterion: Criterion, chunkSize = 5000): Generator<RunResult[], { summary: RunSummary; worst: RunResult | null }> {
   const cc = compileCriterion(criterion)
-  const m = matchRows(cases, rows, functionId)
+  const rows = Array.isArray(rowList) ? rowsOf(rowList, functionId) : rowList as RunRows
+  const m = matchByKey(cases, rows.length, i => rows.key(i))
   const summarizer = new RunSummarizer()
   let worst: RunResult | null = null
   let chunk: RunResult[] = []
@@ -63,35 +81,23 @@ export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[],
     if (summarizer.worstIndex === summarizer.size - 1) worst = r
     chunk.push(r)
   }
-  const full = () => chunk.length >= chunkSize
-  const take = () => { const c = chunk; chunk = []; return c }
-  let next = 0
-  for (const i of m.missing) {
-    // Interleave matched and missing cases back into case order.
-    while (next < m.matched.length && m.matched[next]!.caseIndex < i) {
-      pushMatched(m.matched[next++]!)
-      if (full()) yield take()
+  // every case in case order: judged when it has a row, else missing
+  for (let caseIndex = 0; caseIndex < cases.length; caseIndex++) {
+    const cs = cases[caseIndex]!
+    const rowIndex = m.rowOfCase[caseIndex]!
+    if (rowIndex < 0) push(blank('missing', 'no-row', caseIndex, null, cs.key, null, cs.region))
+    else {
+      const measured = rows.measured(rowIndex)
+      const j = judgeSetCase(cs, measured, cc)
+      push({ caseIndex, rowIndex, key: cs.key, region: j.region, measured: measured.raw, verdict: j.verdict, decidedBy: j.decidedBy, absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed })
     }
-    const cs = cases[i]!
-    push(blank('missing', 'no-row', i, null, cs.key, null, cs.region))
-    if (full()) yield take()
-  }
-  while (next < m.matched.length) {
-    pushMatched(m.matched[next++]!)
-    if (full()) yield take()
+    if (chunk.length >= chunkSize) { yield chunk; chunk = [] }
   }
   for (const d of m.duplicate) {
     const cs = cases[d.caseIndex]!
-    push(blank('duplicate', `duplicate-of-row:${d.firstRowIndex}`, d.caseIndex, d.rowIndex, cs.key, rows[d.rowIndex]!.measured.raw, cs.region))
+    push(blank('duplicate', `duplicate-of-row:${d.firstRowIndex}`, d.caseIndex, d.rowIndex, cs.key, rows.measured(d.rowIndex).raw, cs.region))
   }
-  for (const u of m.unexpected) push(blank('unexpected', u.key === null ? 'unreadable-inputs' : 'no-case', null, u.rowIndex, u.key, rows[u.rowIndex]!.measured.raw))
-  if (chunk.length > 0) yield take()
+  for (const u of m.unexpected) push(blank('unexpected', u.key === null ? 'unreadable-inputs' : 'no-case', null, u.rowIndex, u.key, rows.measured(u.rowIndex).raw))
+  if (chunk.length > 0) yield chunk
   return { summary: summarizer.finish(), worst }
-
-  function pushMatched({ caseIndex, rowIndex }: { caseIndex: number; rowIndex: number }): void {
-    const cs = cases[caseIndex]!
-    const row = rows[rowIndex]!
-    const j = judgeSetCase(cs, row.measured, cc)
-    push({ caseIndex, rowIndex, key: cs.key, region: j.region, measured: row.measured.raw, verdict: j.verdict, decidedBy: j.decidedBy, absError: j.absError, relError: j.relError, ulps: j.ulps, digitsAgreed: j.digitsAgreed })
-  }
 }

@@ -27,12 +27,19 @@ export function canonicalDecimal(x: ExactDecimal): string {
   return `${sign}${digits}e${x.exp}`
 }
 
+/**
+ * Whether text is already in canonical form as a plain decimal: no plus
+ * sign, leading or trailing zeros, or "-0", and short enough that
+ * canonicalDecimal keeps plain notation (PLAIN_LIMIT).
+ */
+export function isCanonicalPlain(text: string): boolean {
+  return text.length <= PLAIN_LIMIT && CANONICAL_PLAIN.test(text) && text !== '-0'
+}
+
 /** Canonical text of a decimal string (throws DomainError when it is not a decimal). */
 export function canonicalValue(text: string, param = 'value'): string {
-  // Already canonical (the common case when matching rows): a plain decimal
-  // without a plus sign, leading or trailing zeros, or "-0". Short enough
-  // that canonicalDecimal keeps plain notation (PLAIN_LIMIT).
-  if (text.length <= PLAIN_LIMIT && CANONICAL_PLAIN.test(text) && text !== '-0') return text
+  // already canonical: the common case when matching rows
+  if (isCanonicalPlain(text)) return text
   const x = parseDecimal(text)
   if (x === null) return canonicalDecimal(parseExactDecimal(text, param)) // throws the engine's message
   return canonicalDecimal(x)

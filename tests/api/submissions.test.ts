@@ -107,6 +107,10 @@ describe('submissions', () => {
     expect(r.body.run.counts).toMatchObject({ missing: 1, unexpected: 1, duplicate: 2, non_finite: 1 })
     const dup = await viewer.get(`/api/runs/${r.body.run.id}/cases?verdict=duplicate`)
     expect(dup.body.rows.map((x: { decidedBy: string }) => x.decidedBy).every((d: string) => /repeats line/.test(d))).toBe(true)
+    // a row that matches no case keeps its own inputs, by exact value
+    const extra = await viewer.get(`/api/runs/${r.body.run.id}/cases?verdict=unexpected`)
+    expect(extra.body.rows).toHaveLength(1)
+    expect(extra.body.rows[0]).toMatchObject({ inputs: { n: '3', x: '0.25' }, measured: '1.0', decidedBy: 'no-case' })
   })
 
   it('marks a value that is far off as a failure with its error figures', async () => {
