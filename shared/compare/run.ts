@@ -77,8 +77,7 @@ export function* judgeRunInChunks(functionId: string, cases: readonly RunCase[],
   let worst: RunResult | null = null
   let chunk: RunResult[] = []
   const push = (r: RunResult) => {
-    summarizer.add(r)
-    if (summarizer.worstIndex === summarizer.size - 1) worst = r
+    if (summarizer.add(r)) worst = r
     chunk.push(r)
   }
   // every case in case order: judged when it has a row, else missing

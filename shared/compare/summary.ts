@@ -173,24 +173,16 @@ export class RunSummarizer {
   private tmp = new Float64Array(2)
   private count = 0
 
-  /** How many results were added. */
-  get size(): number {
-    return this.count
-  }
-
-  /** Add the next result (its index in the run is the number added before it). */
-  add(r: RunCaseResult): void {
+  /** Add the next result (its index in the run is the number added before it); true when it is now the run's worst. */
+  add(r: RunCaseResult): boolean {
     const index = this.count++
     this.all.add(r, index, this.tmp)
-    if (r.region === undefined) return
-    let g = this.regions.get(r.region)
-    if (!g) this.regions.set(r.region, (g = new FigureAccumulator()))
-    g.add(r, index, this.tmp)
-  }
-
-  /** Index of the run's worst result so far (−1 before any). */
-  get worstIndex(): number {
-    return this.all.worstIndex
+    if (r.region !== undefined) {
+      let g = this.regions.get(r.region)
+      if (!g) this.regions.set(r.region, (g = new FigureAccumulator()))
+      g.add(r, index, this.tmp)
+    }
+    return this.all.worstIndex === index
   }
 
   finish(): RunSummary {
