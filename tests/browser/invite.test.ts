@@ -5,7 +5,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { sectionsFor } from '../../shared/domain/navigation'
 import { demoUser } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 let browser: Session
 beforeAll(async () => {
@@ -20,7 +20,7 @@ describe('invitation through the pages', () => {
     const page = await browser.context.newPage()
     const a = demoUser('admin')
     await signInThroughPage(page, a.email, a.password)
-    await page.goto('/admin')
+    await gotoReady(page, '/admin')
     const email = `invited-${Date.now()}@example.test`
     await page.getByLabel('Name').fill('Nell Ashgrove')
     await page.getByLabel('E-mail address').fill(email)
@@ -80,7 +80,7 @@ describe('invitation through the pages', () => {
     const a = demoUser('qa')
     await browser.context.clearCookies()
     await signInThroughPage(page, a.email, a.password)
-    await page.goto('/api')
+    await gotoReady(page, '/api')
     await page.locator('[data-operation="POST /api/runs"]').waitFor()
     expect(await page.locator('[data-operation]').count()).toBeGreaterThanOrEqual(15)
     await expect.poll(() => page.locator('[data-operation="POST /api/runs"]').innerText()).toMatch(/CI token of scope submit/)
@@ -92,11 +92,13 @@ describe('invitation through the pages', () => {
     const page = await browser.context.newPage()
     await browser.context.clearCookies()
     await page.setViewportSize({ width: 390, height: 844 })
-    await page.goto(`/set-password#token=${'u'.repeat(43)}`)
+    await gotoReady(page, `/set-password#token=${'u'.repeat(43)}`)
     await expect.poll(() => page.getByTestId('link-problem').innerText()).toMatch(/not valid/)
     await page.screenshot({ path: join(SCREENSHOTS, 'set-password-bad-link-390.png'), fullPage: true })
-    await page.goto('/login')
+    await gotoReady(page, '/login')
     await page.getByRole('link', { name: 'Forgot your password?' }).click()
+    // the sign-in page has an "E-mail address" field too: wait until the new page is in place
+    await page.getByRole('button', { name: 'Send the link' }).waitFor()
     await page.getByLabel('E-mail address').fill('nobody@example.test')
     await page.getByRole('button', { name: 'Send the link' }).click()
     await expect.poll(() => page.getByRole('status').innerText()).toMatch(/If this address has an account/)

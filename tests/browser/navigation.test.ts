@@ -4,7 +4,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { ROLES } from '../../shared/domain/enums'
 import { demoUser } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 const EXPECTED: Record<string, string[]> = {
   admin: ['Board', 'Reference sets', 'Codes', 'Deviations', 'Submit', 'Audit trail', 'Admin'],
@@ -48,7 +48,7 @@ describe('navigation by role', () => {
   it('keeps a viewer out of the admin page and sends anonymous visitors to sign in', async () => {
     const page = await browser.context.newPage()
     await browser.context.clearCookies()
-    await page.goto('/admin')
+    await gotoReady(page, '/admin')
     await page.waitForURL(/\/login\?next=(%2F|\/)admin/)
     const u = demoUser('viewer')
     await page.getByLabel('E-mail address').fill(u.email)
@@ -61,7 +61,7 @@ describe('navigation by role', () => {
   it('shows the server message on a wrong password', async () => {
     const page = await browser.context.newPage()
     await browser.context.clearCookies()
-    await page.goto('/login')
+    await gotoReady(page, '/login')
     await page.getByLabel('E-mail address').fill(demoUser('qa').email)
     await page.getByLabel('Password').fill('not-the-password')
     await page.getByRole('button', { name: 'Sign in' }).click()
@@ -74,7 +74,7 @@ describe('navigation by role', () => {
     await browser.context.clearCookies()
     const a = demoUser('admin')
     await signInThroughPage(page, a.email, a.password)
-    await page.goto('/admin')
+    await gotoReady(page, '/admin')
     const email = `browser-${Date.now()}@example.test`
     await page.getByLabel('Name').fill('Browser Person')
     await page.getByLabel('E-mail address').fill('not-an-address')

@@ -3,7 +3,7 @@
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { demoUser } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 const PAGES = [
   { path: '/', name: 'board', heading: 'Board' },
@@ -36,7 +36,7 @@ describe('pages at both widths', () => {
   it.each(cases)('%s at %i px', async (_path, width, p) => {
     const page = await browser.context.newPage()
     await page.setViewportSize({ width, height: 900 })
-    await page.goto(p.path)
+    await gotoReady(page, p.path)
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(p.heading)
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - window.innerWidth)
     expect(overflow).toBeLessThanOrEqual(0)
@@ -48,7 +48,7 @@ describe('pages at both widths', () => {
     const page = await browser.context.newPage()
     await page.context().clearCookies()
     await page.setViewportSize({ width: 390, height: 844 })
-    await page.goto('/login')
+    await gotoReady(page, '/login')
     await expect.poll(() => page.getByText(/does not replace your\s+organisation's QA programme/).count()).toBe(1)
     await page.screenshot({ path: join(SCREENSHOTS, 'page-login-390.png'), fullPage: true })
     await page.close()

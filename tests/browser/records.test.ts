@@ -10,7 +10,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { demoUser, signedIn, unique } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 import { hermiteSet, readySet } from '../support/sets'
 import { freshMinor, submitTable, tableFromSet } from '../support/records'
 
@@ -41,7 +41,7 @@ async function as(role: 'viewer' | 'owner' | 'qa'): Promise<Page> {
 
 /** The board's cell for our version and set (the board filtered to that set). */
 async function boardCell(page: Page) {
-  await page.goto('/')
+  await gotoReady(page, '/')
   await page.getByLabel('Reference set').selectOption({ label: setName })
   // one code shows all its versions; tests before this one may have added many
   await page.getByTestId('filter-code').selectOption('oscillite')
@@ -99,7 +99,7 @@ describe('verification record and deviations in the browser', () => {
 
   it('the owner proposes a deviation for the failing case from the run page', async () => {
     const page = await as('owner')
-    await page.goto(`/runs/${runId}`)
+    await gotoReady(page, `/runs/${runId}`)
     await page.getByTestId('filter-verdict-fail').check()
     await expect.poll(() => page.getByTestId('case-total').innerText()).toBe('1')
     await page.getByTestId('case-expand').first().click()
@@ -122,14 +122,14 @@ describe('verification record and deviations in the browser', () => {
 
   it('qa approves it on the Deviations page and the board cell turns to accepted', async () => {
     const page = await as('qa')
-    await page.goto('/deviations?state=proposed')
+    await gotoReady(page, '/deviations?state=proposed')
     const card = page.locator('[data-deviation]', { hasText: 'Cancellation in the recurrence at n = 8' }).first()
     await card.waitFor()
     await card.getByTestId('deviation-comment').fill('Checked against the release plan; accepted until 99.0.0.')
     await card.getByTestId('deviation-approve').click()
     // settled, it leaves the list of proposed ones and shows among the approved
     await card.waitFor({ state: 'detached' })
-    await page.goto('/deviations?state=approved')
+    await gotoReady(page, '/deviations?state=approved')
     const approved = page.locator('[data-deviation]', { hasText: 'Cancellation in the recurrence at n = 8' }).first()
     await expect.poll(() => approved.locator('[data-deviation-state]').innerText()).toBe('approved')
     expect(await approved.innerText()).toContain('Checked against the release plan')

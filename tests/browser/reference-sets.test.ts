@@ -7,7 +7,7 @@ import { join } from 'node:path'
 import type { Page } from 'playwright-core'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { demoUser, unique } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 let qa: Session
 let viewer: Session
@@ -40,7 +40,7 @@ describe('reference sets in the browser', () => {
     const page = await qa.context.newPage()
     const u = demoUser('qa')
     await signInThroughPage(page, u.email, u.password)
-    await page.goto('/reference-sets')
+    await gotoReady(page, '/reference-sets')
     await page.getByRole('link', { name: 'New reference set' }).click()
     await page.waitForURL('**/reference-sets/new')
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe('New reference set')
@@ -115,7 +115,7 @@ describe('reference sets in the browser', () => {
 
   it('the set page shows progress until ready, pages the cases and downloads CSV', async () => {
     const page = await qa.context.newPage()
-    await page.goto(setPath)
+    await gotoReady(page, setPath)
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(name)
     // The bar or the ready mark: progress is shown until the worker finishes.
     await expect.poll(() => page.locator('[data-testid="set-progress"], [data-state="ready"], [data-testid="set-error"]').count()).toBeGreaterThan(0)
@@ -148,7 +148,7 @@ describe('reference sets in the browser', () => {
 
   it('edit as new revision opens the form filled in and saves revision 2', async () => {
     const page = await qa.context.newPage()
-    await page.goto(setPath)
+    await gotoReady(page, setPath)
     await page.getByRole('link', { name: 'Edit as new revision' }).click()
     await page.waitForURL(/\/reference-sets\/new\?from=\d+/)
     await expect.poll(() => page.getByLabel('Name', { exact: true }).inputValue()).toBe(name)
@@ -160,7 +160,7 @@ describe('reference sets in the browser', () => {
     expect(await page.getByRole('link', { name: 'r1' }).getAttribute('href')).toBe(setPath)
 
     // The slug is taken now: the server's 409 names the slug field.
-    await page.goto('/reference-sets/new')
+    await gotoReady(page, '/reference-sets/new')
     await page.getByLabel('Name', { exact: true }).fill(name)
     await page.getByRole('button', { name: 'Save', exact: true }).click()
     await expect.poll(() => page.locator('#set-slug-error').innerText()).toContain('taken')
@@ -171,12 +171,12 @@ describe('reference sets in the browser', () => {
     const page = await viewer.context.newPage()
     const u = demoUser('viewer')
     await signInThroughPage(page, u.email, u.password)
-    await page.goto('/reference-sets')
+    await gotoReady(page, '/reference-sets')
     await expect.poll(() => page.getByTestId('sets-table').innerText()).toContain(name)
     expect(await page.getByRole('link', { name: 'New reference set' }).count()).toBe(0)
     expect(await page.getByTestId('sets-table').getByRole('link', { name }).getAttribute('href')).toMatch(/^\/reference-sets\/\d+$/)
     await shoot(page, 'reference-sets-index-viewer')
-    await page.goto(setPath)
+    await gotoReady(page, setPath)
     await expect.poll(() => page.getByRole('heading', { level: 1 }).innerText()).toBe(name)
     expect(await page.getByRole('link', { name: 'Edit as new revision' }).count()).toBe(0)
     expect(await page.getByTestId('set-definition').innerText()).toContain('H_n(x)')

@@ -6,7 +6,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { demoUser, signedIn, unique } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
 
 const NS = [0, 4, 8, 12]
@@ -49,7 +49,7 @@ afterAll(async () => {
 describe('release tracking pages', () => {
   it('opens the run from its board cell, and marks the regression', async () => {
     const page = await browser.context.newPage()
-    await page.goto('/')
+    await gotoReady(page, '/')
     await page.getByTestId('filter-code').selectOption('oscillite')
     await page.getByTestId('filter-set').selectOption(slug)
     const cell = page.locator(`[data-cell="${newer}:${slug}"]`)
@@ -68,7 +68,7 @@ describe('release tracking pages', () => {
     for (const width of [1280, 390]) {
       const page = await browser.context.newPage()
       await page.setViewportSize({ width, height: 900 })
-      await page.goto(`/codes/oscillite?at=${newer}`)
+      await gotoReady(page, `/codes/oscillite?at=${newer}`)
       const chart = page.getByTestId('trend-chart')
       await chart.waitFor()
       await chart.locator(`rect[data-version="${newer}"]`).hover()
@@ -87,7 +87,7 @@ describe('release tracking pages', () => {
     for (const width of [1280, 390]) {
       const page = await browser.context.newPage()
       await page.setViewportSize({ width, height: 900 })
-      await page.goto(`/codes/oscillite/compare?from=${older}&to=${newer}&set=${slug}`)
+      await gotoReady(page, `/codes/oscillite/compare?from=${older}&to=${newer}&set=${slug}`)
       const summary = page.getByTestId('compare-summary')
       await expect.poll(() => summary.innerText()).toContain(`Oscillite ${newer} against ${older}`)
       expect(await summary.innerText()).toContain('2 newly failing, 1 fixed, 0 still failing')

@@ -6,7 +6,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Page } from 'playwright-core'
 import { demoUser, signedIn, unique } from '../support/api'
-import { openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
+import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 const N_VALUES = Array.from({ length: 11 }, (_, i) => 3 * i) // 0, 3, …, 30
 const X_VALUES = Array.from({ length: 21 }, (_, i) => -5 + 0.5 * i) // -5, -4.5, …, 5 (exact in binary)
@@ -90,7 +90,7 @@ describe('submit a table and read the run', () => {
     await browser.context.clearCookies()
     const qa = demoUser('qa')
     await signInThroughPage(page, qa.email, qa.password)
-    await page.goto('/submit')
+    await gotoReady(page, '/submit')
     await expect.poll(() => page.title()).toBe('Submit · Plumbline')
     await expect.poll(() => page.getByTestId('caution').innerText()).toContain('not a substitute')
 
@@ -155,7 +155,7 @@ describe('submit a table and read the run', () => {
   it('the same file, dropped on the zone, for the same version and set is recognised, not judged twice', async () => {
     expect(runPath).toMatch(/^\/runs\/\d+$/)
     const page = await browser.context.newPage()
-    await page.goto('/submit')
+    await gotoReady(page, '/submit')
     await page.getByLabel('Code', { exact: true }).selectOption('oscillite')
     await page.getByLabel('an existing version').check()
     await page.getByLabel('Which existing version').selectOption(versionLabel)
@@ -185,7 +185,7 @@ describe('submit a table and read the run', () => {
     await browser.context.clearCookies()
     const owner = demoUser('owner')
     await signInThroughPage(page, owner.email, owner.password)
-    await page.goto(runPath)
+    await gotoReady(page, runPath)
     const table = page.getByTestId('case-table')
     await table.waitFor()
     const failCount = Number((await page.getByTestId('run-counts').locator('[data-count="fail"]').innerText()).replace(/\D+/g, ''))

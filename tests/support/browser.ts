@@ -33,8 +33,18 @@ export async function openBrowser(): Promise<Session> {
   }
 }
 
+/**
+ * Open a page and wait until Vue has hydrated it (app/plugins/hydrated.client.ts):
+ * a click before that submits a form as plain HTML, which the app never sees.
+ */
+export async function gotoReady(page: Page, path: string) {
+  const response = await page.goto(path)
+  await page.locator('html[data-hydrated]').waitFor({ state: 'attached' })
+  return response
+}
+
 export async function signInThroughPage(page: Page, email: string, password: string) {
-  await page.goto('/login')
+  await gotoReady(page, '/login')
   await page.getByLabel('E-mail address').fill(email)
   await page.getByLabel('Password').fill(password)
   await page.getByRole('button', { name: 'Sign in' }).click()
