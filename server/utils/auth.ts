@@ -1,6 +1,6 @@
 // Role helpers. Every route calls one of these first; the role comes from the
-// database on each request, so a disabled user or a changed role takes effect
-// at once, whatever the session cookie says.
+// database on each request, so a disabled user, a changed role or a new
+// password takes effect at once, whatever the session cookie says.
 import type { H3Event } from 'h3'
 import { eq } from 'drizzle-orm'
 import type { Role } from '../../shared/domain/enums'
@@ -19,12 +19,18 @@ export async function requireUser(event: H3Event): Promise<CurrentUser> {
   }
   const db = useDb()
   const [row] = await db
-    .select({ id: schema.users.id, email: schema.users.email, name: schema.users.name, role: schema.users.role, disabled: schema.users.disabled })
+    .select({ id: schema.users.id, email: schema.users.email, name: schema.users.name, role: schema.users.role, disabled: schema.users.disabled, passwordChangedAt: schema.users.passwordChangedAt })
     .from(schema.users)
     .where(eq(schema.users.id, sessionUser.id))
   if (!row || row.disabled) {
     await clearUserSession(event)
     throw httpError(401, 'unauthenticated', 'Your account is not active. Ask an administrator.')
+  }
+  // a password chosen after this session began ends it (the session that chose it is renewed)
+  const signedInAt = typeof session.loggedInAt === 'number' ? session.loggedInAt : 0
+  if (row.passwordChangedAt && signedInAt < row.passwordChangedAt.getTime()) {
+    await clearUserSession(event)
+    throw httpError(401, 'unauthenticated', 'The password of this account was changed after you signed in. Sign in again.')
   }
   const user: CurrentUser = { id: row.id, email: row.email, name: row.name, role: row.role }
   event.context.currentUser = user

@@ -128,6 +128,25 @@ describe('own password', () => {
     expect((await new Client().login(u.email, u.password)).status).toBe(401)
     expect((await new Client().login(u.email, 'second-password-2')).status).toBe(200)
   })
+
+  it('ends every other session of the account, and keeps the one that changed it', async () => {
+    const u = await newUser('owner')
+    const here = new Client()
+    const elsewhere = new Client()
+    await here.login(u.email, u.password)
+    await elsewhere.login(u.email, u.password)
+    expect((await elsewhere.get('/api/auth/me')).status).toBe(200)
+    expect((await here.post('/api/auth/password', { currentPassword: u.password, newPassword: 'second-password-2' })).status).toBe(200)
+    expect((await here.get('/api/auth/me')).status).toBe(200)
+    expect((await here.get('/api/board')).status).toBe(200)
+    const ended = await elsewhere.get('/api/board')
+    expect(ended.status).toBe(401)
+    expect(ended.body.message).toMatch(/password of this account was changed after you signed in/)
+    // it stays ended until it signs in again, with the new password
+    expect((await elsewhere.get('/api/auth/me')).status).toBe(401)
+    expect((await elsewhere.login(u.email, 'second-password-2')).status).toBe(200)
+    expect((await elsewhere.get('/api/board')).status).toBe(200)
+  })
 })
 
 describe('users', () => {

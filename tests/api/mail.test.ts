@@ -103,11 +103,15 @@ describe('password reset', () => {
     bothParts(reset!)
     expect((await sql('SELECT id FROM mail_outbox WHERE to_address = ?', [nobody]))).toHaveLength(0)
 
+    // a session that was open before the reset ends with it
+    const before = new Client()
+    expect((await before.login(email, 'first-password-1')).status).toBe(200)
     const c = new Client()
     expect((await c.post('/api/auth/link', { token: linkSecret(reset!.text).secret })).body.purpose).toBe('reset')
     expect((await c.post('/api/auth/set-password', { token: linkSecret(reset!.text).secret, password: 'second-password-2' })).status).toBe(200)
     expect((await new Client().login(email, 'first-password-1')).status).toBe(401)
     expect((await new Client().login(email, 'second-password-2')).status).toBe(200)
+    expect((await before.get('/api/auth/me')).status).toBe(401)
     expect((await c.post('/api/auth/set-password', { token: linkSecret(reset!.text).secret, password: 'third-password-3' })).status).toBe(410)
   })
 

@@ -14,5 +14,7 @@ export default defineEventHandler(async (event) => {
     await tx.update(schema.users).set({ passwordHash: hash, passwordChangedAt: new Date() }).where(eq(schema.users.id, user.id))
     await recordAudit(tx, user, 'change-password', 'user', user.id)
   })
+  // every other session of this account now ends (server/utils/auth.ts); this one goes on
+  await setUserSession(event, { loggedInAt: Date.now() })
   return { ok: true }
 })
