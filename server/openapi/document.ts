@@ -103,7 +103,7 @@ export function operations(): Record<string, Record<string, Op>> {
       post: {
         tag: 'Runs',
         summary: 'Submit an output table',
-        description: 'Judges every case of the reference set against the table and stores the run, its raw file and every case result in one transaction. A new version label makes a new version. The same file for the same version and set is recognised and its earlier run returned (200, `duplicate: true`). A table with any unreadable row is refused whole.',
+        description: 'Judges every case of the reference set against the table and stores the run, its raw file and every case result in one transaction. A new version label makes a new version, with the `commit` and `environment` sent. For an existing version these may be repeated, left out, or add fields it does not record yet; a value that contradicts what it records is refused with 409 `build_differs`, naming each field, since a different build needs a label of its own. The same file for the same version and set is recognised and its earlier run returned (200, `duplicate: true`). A table with any unreadable row is refused whole.',
         access: { roles: ['qa', 'admin'], tokenScopes: ['submit'] },
         body: submissionBodies(),
         ok: { status: 201, description: 'Judged and stored (200 for a duplicate).', content: json(ref('SubmitReply')) },

@@ -16,6 +16,9 @@ import type { JudgedRun } from './submissions'
 import type { CurrentUser } from './auth'
 import { LOAD_RESULTS, resultsTsv } from './load-data'
 import { queueRunFailureNotice } from '../mail/notifications'
+import { reconcileBuild } from '../../shared/domain/build'
+import type { Environment } from '../../shared/schemas/submission'
+import { buildDiffers } from './submissions'
 
 /**
  * Start loading one chunk. `sent` settles once the whole chunk has been
@@ -49,6 +52,8 @@ export interface StoreInput {
   versionId: number | null
   commit?: string
   environment?: BuildEnvironment
+  /** The submission adds commit or environment fields that the existing version lacks. */
+  fillsBuild?: boolean
   fileName: string
   data: Buffer
   sha: string
@@ -69,6 +74,17 @@ export async function storeRun(input: StoreInput): Promise<{ id: number, counts:
       const [v] = await tx.insert(schema.versions).values({ codeId: input.codeId, label: input.versionLabel, commitId: input.commit ?? '', environment: input.environment ?? {} }).$returningId()
       versionId = v!.id
       await recordAudit(tx, input.actor, 'create-version', 'version', versionId, { label: input.versionLabel })
+    }
+    else if (input.fillsBuild) {
+      // fields are only ever added: lock the version and check again against what it records now
+      const v = schema.versions
+      const [now] = await tx.select({ commitId: v.commitId, environment: v.environment }).from(v).where(eq(v.id, versionId)).for('update')
+      const { conflicts, filled } = reconcileBuild({ commitId: now!.commitId, environment: now!.environment as Environment }, { commit: input.commit, environment: input.environment as Environment | undefined })
+      if (conflicts.length) throw buildDiffers(input.versionLabel, conflicts)
+      if (filled) {
+        await tx.update(v).set(filled).where(eq(v.id, versionId))
+        await recordAudit(tx, input.actor, 'complete-version-build', 'version', versionId, { label: input.versionLabel, before: now, after: filled })
+      }
     }
     // counts and figures are filled in once every case is judged, in this same transaction
     const [run] = await tx.insert(schema.runs).values({

@@ -12,7 +12,8 @@ import type { ReferenceValue } from '../../shared/compare/judge'
 import type { summarizeRun } from '../../shared/compare'
 import { CATALOGUE, isFunctionId } from '../../shared/reference'
 import { inputKey, isCanonicalPlain } from '../../shared/grid/keys'
-import { submissionSchema, type SubmissionFields } from '../../shared/schemas/submission'
+import { submissionSchema, type Environment, type SubmissionFields } from '../../shared/schemas/submission'
+import { describeConflict, reconcileBuild, type BuildConflict } from '../../shared/domain/build'
 import type { Criterion } from '../../shared/schemas/criterion'
 import type { ReferenceSet } from '../database/schema'
 
@@ -254,6 +255,23 @@ export async function findCode(slug: string) {
 export async function findVersion(codeId: number, label: string) {
   const [v] = await useDb().select().from(schema.versions).where(and(eq(schema.versions.codeId, codeId), eq(schema.versions.label, label)))
   return v ?? null
+}
+
+/**
+ * The build details of a submission for an existing version, against what the
+ * version records (shared/domain/build.ts): a 409 naming each field that
+ * contradicts it; otherwise whether the submission adds fields to record.
+ */
+export function checkBuild(version: { label: string, commitId: string, environment: unknown }, fields: Pick<SubmissionFields, 'commit' | 'environment'>): { fills: boolean } {
+  const { conflicts, filled } = reconcileBuild({ commitId: version.commitId, environment: version.environment as Environment }, fields)
+  if (conflicts.length) throw buildDiffers(version.label, conflicts)
+  return { fills: filled !== null }
+}
+
+export function buildDiffers(label: string, conflicts: BuildConflict[]) {
+  return httpError(409, 'build_differs', `${conflicts.map(c => describeConflict(label, c)).join(' ')} A different build is a different version: submit it under a label of its own, or leave the field out.`, {
+    issues: conflicts.map(c => ({ field: c.field, message: describeConflict(label, c) })),
+  })
 }
 
 export async function findDuplicateRun(versionId: number, setId: number, sha: string) {
