@@ -11,7 +11,7 @@
  */
 import { readFileSync, writeFileSync } from 'node:fs'
 import { basename, resolve } from 'node:path'
-import { environmentSchema } from '../shared/schemas/submission'
+import { environmentSchema, setSlugSchema } from '../shared/schemas/submission'
 import { failures } from '../shared/domain/board'
 import type { RunDetail } from '../shared/domain/api-types'
 import { CAUTION, caseName, runToJunit, type JunitCase } from './junit'
@@ -23,7 +23,8 @@ export const HELP = `usage: plumbline submit --server URL --token T --code C --v
   --token T        a CI token of scope submit for this code (or PLUMBLINE_TOKEN)
   --code C         the code's slug, e.g. oscillite
   --version V      the version label; a new label makes a new version
-  --set S          the reference set's id (the number in its page's address)
+  --set S          the reference set: its slug for its newest revision (follows revisions),
+                   or its id (the number in its page's address) for that one revision
   --commit SHA     the commit the table was built from
   --env-file F     JSON with the build environment: compiler, flags, platform, floatFormat, libraries
   --mapping JSON   which column holds which parameter, e.g. {"n":"n","x":"x","value":"H"}
@@ -105,7 +106,10 @@ function options(args: string[]) {
   if (missing.length) throw new UsageError(`missing ${missing.join(', ')}\n${HELP}`)
   if (positional.length !== 1) throw new UsageError(`expected one table file, got ${positional.length}\n${HELP}`)
   if (!URL.canParse(server!) || !/^https?:$/.test(new URL(server!).protocol)) throw new UsageError(`--server must be an http(s) address, e.g. http://127.0.0.1:3000; got '${server}'`)
-  if (!/^\d+$/.test(opts.set!) || Number(opts.set) < 1) throw new UsageError(`--set takes the reference set's id, a positive whole number; got '${opts.set}'`)
+  const byId = /^\d+$/.test(opts.set!)
+  if (byId ? Number(opts.set) < 1 : !setSlugSchema.safeParse(opts.set).success) {
+    throw new UsageError(`--set takes the reference set's slug (e.g. hermite-core) or its id (a positive whole number); got '${opts.set}'`)
+  }
   if (opts.mapping) {
     try {
       JSON.parse(opts.mapping)
@@ -146,7 +150,7 @@ export async function runSubmit(args: string[]): Promise<number> {
   const form = new FormData()
   form.append('code', o.code)
   form.append('version', o.version)
-  form.append('setId', o.set)
+  form.append(/^\d+$/.test(o.set) ? 'setId' : 'set', o.set)
   if (o.commit) form.append('commit', o.commit)
   if (o.envFile) form.append('environment', environmentFrom(o.envFile))
   if (o.mapping) form.append('mapping', o.mapping)

@@ -70,7 +70,8 @@ const runId = pathParam('id', 'The run\'s id.')
 const FIELD_TEXT: Record<string, string> = {
   code: 'The code\'s slug, e.g. oscillite.',
   version: 'The version label; a label the code does not have yet makes a new version.',
-  setId: 'The reference set\'s id (the number in its page\'s address).',
+  setId: 'The reference set\'s id (the number in its page\'s address): that revision. Give this or `set`.',
+  set: 'The reference set\'s slug: its newest revision, so a pipeline follows revisions of the set. Give this or `setId`.',
   commit: 'The commit the table was built from.',
 }
 

@@ -50,6 +50,13 @@ export async function loadSet(id: number): Promise<ReferenceSet> {
   return set
 }
 
+/** The newest revision of the set with this slug, or a 404 naming the field `set`. */
+export async function loadNewestRevision(slug: string): Promise<ReferenceSet> {
+  const set = await latestRevision(slug)
+  if (!set) throw httpError(404, 'not_found', `There is no reference set "${slug}".`, { issues: [{ field: 'set', message: 'No set has this slug.' }] })
+  return set
+}
+
 export async function latestRevision(slug: string) {
   const [row] = await useDb().select().from(schema.referenceSets).where(eq(schema.referenceSets.slug, slug)).orderBy(desc(schema.referenceSets.revision)).limit(1)
   return row ?? null

@@ -22,13 +22,24 @@ export const environmentSchema = z.strictObject({
 })
 export type Environment = z.infer<typeof environmentSchema>
 
-/** The fields that come with an uploaded table (multipart fields or a JSON body). */
+/** A reference set's slug, naming its newest revision. */
+export const setSlugSchema = z.string().trim().regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, { error: 'Name the reference set by its slug, e.g. hermite-core.' }).max(80)
+
+/**
+ * The fields that come with an uploaded table (multipart fields or a JSON
+ * body). The set is given by id (one revision) or by slug (`set`: its newest
+ * revision, so a pipeline follows revisions of the set), one of the two.
+ */
 export const submissionSchema = z.object({
   code: z.string().trim().regex(/^[a-z0-9-]{1,64}$/, { error: 'Name the code by its slug, e.g. oscillite.' }),
   version: label,
-  setId: z.coerce.number().int().positive({ error: 'Choose a reference set.' }),
+  setId: z.coerce.number().int().positive({ error: 'Choose a reference set.' }).optional(),
+  set: setSlugSchema.optional(),
   mapping: z.record(z.string().max(40), z.string().max(200)).optional(),
   commit: z.string().trim().max(64).regex(/^[0-9a-zA-Z._-]*$/, { error: 'A commit id is letters and digits.' }).optional(),
   environment: environmentSchema.optional(),
+}).superRefine((f, ctx) => {
+  if (f.setId === undefined && f.set === undefined) ctx.addIssue({ code: 'custom', path: ['setId'], message: 'Choose a reference set: its id (setId), or its slug (set) for the newest revision.' })
+  if (f.setId !== undefined && f.set !== undefined) ctx.addIssue({ code: 'custom', path: ['set'], message: 'Give the reference set once: by id (setId) or by slug (set), not both.' })
 })
 export type SubmissionFields = z.infer<typeof submissionSchema>

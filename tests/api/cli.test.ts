@@ -8,7 +8,7 @@ import { join, resolve } from 'node:path'
 import { XMLParser } from 'fast-xml-parser'
 import { beforeAll, describe, expect, it } from 'vitest'
 import { BASE, type Client, signedIn, unique } from '../support/api'
-import { hermiteDouble, hermiteSet, readySet } from '../support/sets'
+import { hermiteDouble, hermiteSet, readySet, reviseSet } from '../support/sets'
 
 const ROOT = resolve(import.meta.dirname, '../..')
 const BIN = join(ROOT, 'cli/bin.mjs')
@@ -85,6 +85,17 @@ describe('plumbline submit', () => {
     expect(suite.properties.property.find((p: { name: string }) => p.name === 'caution').value).toMatch(/QA programme/)
   })
 
+  it('names the set by its slug, judging against its newest revision', async () => {
+    const slug = unique('cli-slug')
+    const first = await readySet(qa, hermiteSet(slug))
+    const newest = await reviseSet(qa, first.id, hermiteSet(slug, { targetDigits: 21 }))
+    const args = ['submit', '--server', BASE, '--token', DEMO_TOKEN, '--code', 'oscillite', '--version', unique('cli-slug'), '--set', slug, '--json', file('slug.csv', table())]
+    const r = await cli(args)
+    expect(r.err).toBe('')
+    expect(r.code).toBe(0)
+    expect(JSON.parse(r.out).run.set).toEqual({ id: newest.id, slug, revision: 2 })
+  })
+
   it('counts missing cases as failing and sends the build environment from --env-file', async () => {
     const lines = table().trim().split('\n')
     const env = file('env.json', JSON.stringify({ compiler: 'gfortran 14.2', flags: '-O2', platform: 'x86_64-linux', floatFormat: 'binary64' }))
@@ -109,7 +120,8 @@ describe('plumbline submit', () => {
     [['submit', '--server', BASE, '--token', 't', '--code', 'oscillite', '--version', '1', '--set', '1'], /expected one table file/],
     [['submit', '--frobnicate'], /unknown option '--frobnicate'/],
     [['submit', '--server', 'ftp://x', '--token', 't', '--code', 'c', '--version', '1', '--set', '1', 'f.csv'], /--server must be an http\(s\) address/],
-    [['submit', '--server', BASE, '--token', 't', '--code', 'c', '--version', '1', '--set', 'latest', 'f.csv'], /--set takes the reference set's id/],
+    [['submit', '--server', BASE, '--token', 't', '--code', 'c', '--version', '1', '--set', 'Core Set', 'f.csv'], /--set takes the reference set's slug \(e\.g\. hermite-core\) or its id/],
+    [['submit', '--server', BASE, '--token', 't', '--code', 'c', '--version', '1', '--set', '0', 'f.csv'], /--set takes the reference set's slug .* got '0'/],
     [['submit', '--server', BASE, '--token', 't', '--code', 'c', '--version', '1', '--set', '1', 'no-such-file.csv'], /cannot read the table no-such-file.csv: no such file/],
     [['submit', '--server', BASE, '--token', 't', '--code', 'c', '--version', '1', '--set', '1', '--mapping', '{oops', 'f.csv'], /--mapping must be JSON/],
   ])('bad usage %j exits 2 and says why', async (args, message) => {

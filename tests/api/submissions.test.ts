@@ -3,7 +3,7 @@
 // tables (formats, verdict kinds, refusal, 413, deduplication, atomicity).
 import { beforeAll, describe, expect, it } from 'vitest'
 import { type Client, signedIn, unique } from '../support/api'
-import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
+import { hermiteDouble, hermiteSet, readySet, reviseSet, upload } from '../support/sets'
 import { dbQuery } from '../support/db'
 
 let qa: Client
@@ -187,6 +187,26 @@ describe('submissions', () => {
     expect(run.state).toBe('stale')
     const renamed = await qa.request('PUT', `/api/reference-sets/${local.id}`, hermiteSet('another-slug'))
     expect(renamed.status).toBe(400)
+  })
+
+  it('takes the set by slug for its newest revision, and names the field when the set is given twice, not at all or unknown', async () => {
+    const local = await readySet(qa, hermiteSet(unique('h-slug')))
+    const newest = await reviseSet(qa, local.id, hermiteSet(local.slug, { targetDigits: 22 }))
+    const r = await upload(qa, '/api/runs', { code: 'oscillite', version: unique('slug-t'), set: local.slug }, { name: 'h.csv', content: table(honest) })
+    expect(r.status, JSON.stringify(r.body)).toBe(201)
+    const run = (await viewer.get(`/api/runs/${r.body.run.id}`)).body.run
+    expect(run.set).toMatchObject({ id: newest.id, revision: 2 })
+
+    const send = (fields: Record<string, string>) => upload(qa, '/api/runs', { code: 'oscillite', version: unique('slug-bad'), ...fields }, { name: 'h.csv', content: table(honest) })
+    const both = await send({ set: local.slug, setId: String(local.id) })
+    expect(both.status).toBe(400)
+    expect(both.body.data.issues[0]).toMatchObject({ field: 'set', message: expect.stringMatching(/not both/) })
+    const neither = await send({})
+    expect(neither.status).toBe(400)
+    expect(neither.body.data.issues[0].field).toBe('setId')
+    const unknown = await send({ set: unique('no-such-set') })
+    expect(unknown.status).toBe(404)
+    expect(unknown.body.data.issues[0].field).toBe('set')
   })
 
   it('previews a table: columns, first rows and a suggested mapping', async () => {

@@ -20,7 +20,10 @@ export function hermiteSet(slug: string, over: Record<string, unknown> = {}) {
 export async function readySet(client: Client, def: Record<string, unknown>) {
   const created = await client.post('/api/reference-sets', def)
   expect(created.status, JSON.stringify(created.body)).toBe(201)
-  const id = created.body.set.id as number
+  return waitReady(client, created.body.set.id as number)
+}
+
+async function waitReady(client: Client, id: number) {
   for (let i = 0; i < 300; i++) {
     const s = await client.get(`/api/reference-sets/${id}`)
     if (s.body.set.state === 'ready') return s.body.set
@@ -28,6 +31,13 @@ export async function readySet(client: Client, def: Record<string, unknown>) {
     await new Promise(r => setTimeout(r, 200))
   }
   throw new Error(`set ${id} did not become ready`)
+}
+
+/** Revise a set through the API (a new revision of its slug) and wait until the worker has computed it. */
+export async function reviseSet(client: Client, id: number, def: Record<string, unknown>) {
+  const revised = await client.request('PUT', `/api/reference-sets/${id}`, def)
+  expect(revised.status, JSON.stringify(revised.body)).toBe(200)
+  return waitReady(client, revised.body.set.id as number)
 }
 
 /** H_n(x) by the plain three-term recurrence in binary64, as a solver would compute it. */

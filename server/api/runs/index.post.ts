@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const fields = submissionFields(upload)
   const code = await findCode(fields.code)
   requireCodeAccess(caller, code.id)
-  const set = await loadSet(fields.setId)
+  const set = fields.setId !== undefined ? await loadSet(fields.setId) : await loadNewestRevision(fields.set!)
   if (set.state !== 'ready') throw httpError(409, 'not_ready', `Reference set ${set.slug} r${set.revision} is ${set.state}; submit once it is ready.`)
 
   const sha = sha256Hex(upload.data)
