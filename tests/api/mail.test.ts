@@ -6,7 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { createDb, createPool } from '../../server/database/client'
 import { queueDeviationApprovalRequest, queueRunFailureNotice, queueSignOffNotice } from '../../server/mail/notifications'
 import { Client, demoUser, signedIn, unique } from '../support/api'
-import { caughtMessages, linkSecret, smtp, waitForMail } from '../support/mail'
+import { caughtMessages, linkSecret, plantGivenUpMail, smtp, waitForMail } from '../support/mail'
 import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
 import { dbQuery as sql } from '../support/db'
 
@@ -221,6 +221,31 @@ describe('with the SMTP server away', () => {
     finally {
       await smtp('start')
     }
+  })
+
+  it('sends again, on an administrator\'s word, a message the worker gave up on', async () => {
+    const subject = unique('Given up')
+    const id = await plantGivenUpMail(demoUser('owner').email, subject)
+    expect((await qa.post(`/api/outbox/${id}/retry`)).status).toBe(403)
+    const r = await admin.post(`/api/outbox/${id}/retry`)
+    expect(r.status, JSON.stringify(r.body)).toBe(200)
+    expect(r.body).toEqual({ id, state: 'queued' })
+    const [m] = await waitForMail(x => x.subject === subject)
+    expect(m!.outboxId).toBe(id)
+    let row: { state: string, attempts: number } | undefined
+    for (let i = 0; i < 50 && row?.state !== 'sent'; i++) {
+      [row] = await sql<{ state: string, attempts: number }>('SELECT state, attempts FROM mail_outbox WHERE id = ?', [id])
+      if (row?.state !== 'sent') await new Promise(res => setTimeout(res, 200))
+    }
+    expect(row).toEqual({ state: 'sent', attempts: 1 })
+    const audit = await sql<{ action: string, actor: string }>('SELECT action, actor FROM audit_log WHERE object_type = ? AND object_id = ?', ['mail', String(id)])
+    expect(audit).toEqual([{ action: 'requeue-mail', actor: demoUser('admin').email }])
+
+    const again = await admin.post(`/api/outbox/${id}/retry`)
+    expect(again.status).toBe(409)
+    expect(again.body.data.code).toBe('not_failed')
+    expect(again.body.message).toMatch(/is sent; only a message the worker gave up on/)
+    expect((await admin.post('/api/outbox/999999999/retry')).status).toBe(404)
   })
 
   it('lets an administrator read what the catcher received, with both parts', async () => {

@@ -15,7 +15,7 @@ const INTERNAL = new Set([
   'GET /api/users', 'POST /api/users', 'PATCH /api/users/{id}',
   'POST /api/reference-sets', 'PUT /api/reference-sets/{id}', 'POST /api/reference-sets/preview',
   'POST /api/submissions/preview',
-  'GET /api/outbox', 'GET /api/outbox/received',
+  'GET /api/outbox', 'GET /api/outbox/received', 'POST /api/outbox/{id}/retry',
   // deviations, required sets and signatures are settled by people on the pages; the audit trail is read there
   'GET /api/deviations', 'POST /api/deviations', 'POST /api/deviations/{id}/approve', 'POST /api/deviations/{id}/reject', 'POST /api/deviations/{id}/withdraw',
   'GET /api/codes/{slug}/required-sets', 'PUT /api/codes/{slug}/required-sets',

@@ -27,6 +27,7 @@ const ROUTES: Route[] = [
   { method: 'PATCH', path: '/api/users/1', file: 'users/[id].patch.ts', roles: ['admin'], body: {}, okStatus: [400] },
   { method: 'GET', path: '/api/outbox', file: 'outbox/index.get.ts', roles: ['admin'], okStatus: [200] },
   { method: 'GET', path: '/api/outbox/received', file: 'outbox/received.get.ts', roles: ['admin'], okStatus: [200] },
+  { method: 'POST', path: '/api/outbox/999999999/retry', file: 'outbox/[id]/retry.post.ts', roles: ['admin'], body: {}, okStatus: [404] },
   { method: 'GET', path: '/api/codes', file: 'codes/index.get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/codes/oscillite', file: 'codes/[slug].get.ts', roles: ALL, okStatus: [200] },
   { method: 'GET', path: '/api/codes/oscillite/tokens', file: 'codes/[slug]/tokens.get.ts', roles: ['qa', 'admin'], okStatus: [200] },

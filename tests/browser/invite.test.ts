@@ -1,10 +1,12 @@
 // As admin: invite a user, open the Outbox, follow the link in the message the
 // catcher received, choose the password, and sign in as the new user.
-// Screenshots of the Outbox and the set-password page for a person to look at.
+// Send again a message the worker gave up on. Screenshots of the Outbox and the
+// set-password page for a person to look at.
 import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { sectionsFor } from '../../shared/domain/navigation'
-import { demoUser } from '../support/api'
+import { demoUser, unique } from '../support/api'
+import { plantGivenUpMail, waitForMail } from '../support/mail'
 import { gotoReady, openBrowser, SCREENSHOTS, signInThroughPage, type Session } from '../support/browser'
 
 let browser: Session
@@ -72,6 +74,28 @@ describe('invitation through the pages', () => {
     await signInThroughPage(page, email, 'nell-chose-this-1')
     await expect.poll(() => page.getByTestId('nav-wide').getByRole('link').allInnerTexts()).toEqual(sectionsFor('viewer').map(s => s.label))
     await expect.poll(() => page.getByRole('link', { name: 'Nell Ashgrove · viewer' }).count()).toBe(1)
+    await page.close()
+  })
+
+  it('sends again, from the Outbox page, a message the worker gave up on', async () => {
+    const subject = unique('Undelivered notice')
+    await plantGivenUpMail(demoUser('owner').email, subject)
+    const page = await browser.context.newPage()
+    const a = demoUser('admin')
+    await browser.context.clearCookies()
+    await signInThroughPage(page, a.email, a.password)
+    await gotoReady(page, '/admin/outbox')
+    const row = page.getByTestId('outbox-table').locator('tr', { hasText: subject })
+    await expect.poll(() => row.innerText()).toMatch(/failed[\s\S]*gave up after 8 attempts/)
+    await page.screenshot({ path: join(SCREENSHOTS, 'outbox-given-up-1280.png'), fullPage: true })
+    await row.getByRole('button', { name: `Send again: ${subject} to ${demoUser('owner').email}` }).click()
+    await expect.poll(() => row.innerText()).toMatch(/queued|sent/)
+    await waitForMail(m => m.subject === subject)
+    await expect.poll(async () => {
+      await page.getByRole('button', { name: 'Refresh' }).click()
+      return row.innerText()
+    }, { timeout: 30_000 }).toMatch(/sent/)
+    expect(await row.getByRole('button', { name: /Send again/ }).count()).toBe(0)
     await page.close()
   })
 

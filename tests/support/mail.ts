@@ -1,6 +1,7 @@
 // The local SMTP catcher that scripts/test.sh starts: what it received, and
 // its switch to close and reopen the SMTP port.
 import { expect } from 'vitest'
+import { dbQuery } from './db'
 
 export const CATCHER = process.env.PLUMBLINE_CATCHER_URL ?? 'http://127.0.0.1:2528'
 
@@ -41,4 +42,17 @@ export function linkSecret(text: string): { url: string, secret: string } {
   const m = /(https?:\/\/\S+\/set-password#token=([\w-]+))/.exec(text)
   if (!m) throw new Error(`no set-password link in:\n${text}`)
   return { url: m[1]!, secret: m[2]! }
+}
+
+/**
+ * Put a message in the outbox as one the worker gave up on (state failed),
+ * as after a long SMTP outage, and return its id.
+ */
+export async function plantGivenUpMail(to: string, subject: string): Promise<number> {
+  await dbQuery(
+    `INSERT INTO mail_outbox (kind, to_address, subject, text_body, html_body, state, attempts, last_error, next_attempt_at)
+     VALUES ('run-failure', ?, ?, 'A test message that could not be delivered.', '<!doctype html><p>A test message that could not be delivered.</p>', 'failed', 8, 'gave up after 8 attempts: connect ECONNREFUSED 127.0.0.1:2526', NOW(3))`,
+    [to, subject])
+  const [row] = await dbQuery<{ id: number }>('SELECT id FROM mail_outbox WHERE subject = ?', [subject])
+  return row!.id
 }
