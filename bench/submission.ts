@@ -1,14 +1,17 @@
 // Submission workload, end to end through the built server: a 100,000-case
 // reference set, then one 100,000-row output table uploaded, parsed, judged
-// and stored in one transaction. Prints the wall time, the server's peak RSS,
-// and the ratio against a plain read (bytes → lines → fields) of the same file
-// measured in the same run. Uses its own MariaDB instance (`bench`, port 3310).
+// and stored in one transaction, three times back to back (as three versions;
+// PLUMBLINE_SUBMISSIONS sets how many). Prints the median wall time, the
+// server's peak RSS after the first and after the last, and the ratio against
+// a plain read (bytes → lines → fields) of the same file measured in the same
+// run. Uses its own MariaDB instance (`bench`, port 3310).
 import { execFileSync, spawn } from 'node:child_process'
 import { readFileSync, existsSync } from 'node:fs'
 import { join } from 'node:path'
 
 const root = join(import.meta.dirname, '..')
 const PORT = 3190
+const SUBMISSIONS = Number(process.env.PLUMBLINE_SUBMISSIONS ?? 3)
 const BASE = `http://127.0.0.1:${PORT}`
 const sh = (...args: string[]) => execFileSync('bash', args, { cwd: root, encoding: 'utf8', stdio: ['ignore', 'pipe', 'inherit'] })
 
@@ -61,22 +64,36 @@ try {
   }
   const table = Buffer.from(lines.join('\n') + '\n')
 
-  // the reference: a plain read of the same bytes into lines and fields
-  const r0 = performance.now()
+  // the reference: a plain read of the same bytes into lines and fields (median of 5)
   let fields = 0
-  for (const line of table.toString('utf8').split('\n')) fields += line.split(',').length
-  const plainMs = performance.now() - r0
+  const plainTimes: number[] = []
+  for (let i = 0; i < 5; i++) {
+    const r0 = performance.now()
+    fields = 0
+    for (const line of table.toString('utf8').split('\n')) fields += line.split(',').length
+    plainTimes.push(performance.now() - r0)
+  }
+  const median = (v: number[]) => [...v].sort((a, b) => a - b)[Math.floor(v.length / 2)]!
+  const plainMs = median(plainTimes)
 
-  const form = new FormData()
-  form.append('code', 'oscillite')
-  form.append('version', 'bench-1')
-  form.append('setId', String(created.set.id))
-  form.append('file', new Blob([table]), 'bench.csv')
-  const s0 = performance.now()
-  const res = await fetch(`${BASE}/api/runs`, { method: 'POST', headers, body: form })
-  const submitMs = performance.now() - s0
-  const body = await res.json() as { run?: { id: number, counts: Record<string, number> }, message?: string }
-  if (res.status !== 201) throw new Error(`submission failed: ${res.status} ${body.message}`)
+  // the same table submitted as three versions (a repeat for one version would be recognised, not judged)
+  const submitTimes: number[] = []
+  let firstPeak = 0
+  let body: { run?: { id: number, counts: Record<string, number> }, message?: string } = {}
+  for (let i = 1; i <= SUBMISSIONS; i++) {
+    const form = new FormData()
+    form.append('code', 'oscillite')
+    form.append('version', `bench-${i}`)
+    form.append('setId', String(created.set.id))
+    form.append('file', new Blob([table]), 'bench.csv')
+    const s0 = performance.now()
+    const res = await fetch(`${BASE}/api/runs`, { method: 'POST', headers, body: form })
+    submitTimes.push(performance.now() - s0)
+    if (i === 1) firstPeak = peakRss(server.pid!)
+    body = await res.json() as typeof body
+    if (res.status !== 201) throw new Error(`submission failed: ${res.status} ${body.message}`)
+  }
+  const submitMs = median(submitTimes)
 
   // what the code owner opens next: the error map (binned past 8,000 cases) and the worst page of the case table
   const timed = async (path: string) => {
@@ -91,7 +108,9 @@ try {
 
   console.log('workload                                        time        peak RSS   ratio to plain read')
   console.log(`(d) reference set, 100,000 cases (worker)     ${setSeconds.toFixed(1).padStart(6)} s`)
-  console.log(`(e) submit 100,000 rows: parse, judge, store  ${(submitMs / 1000).toFixed(2).padStart(6)} s   ${peakRss(server.pid!).toFixed(0).padStart(5)} MB   ${(submitMs / plainMs).toFixed(0)}× (plain read ${plainMs.toFixed(0)} ms, ${fields} fields)`)
+  console.log(`(e) submit 100,000 rows: parse, judge, store  ${(submitMs / 1000).toFixed(2).padStart(6)} s   ${firstPeak.toFixed(0).padStart(5)} MB   ${(submitMs / plainMs).toFixed(0)}× (plain read ${plainMs.toFixed(0)} ms, ${fields} fields)`)
+  console.log(`    median of ${SUBMISSIONS} submissions (${submitTimes.map(t => (t / 1000).toFixed(2)).join(' s, ')} s); peak RSS after the first ${firstPeak.toFixed(0)} MB,`)
+  console.log(`    after all ${SUBMISSIONS} back to back ${peakRss(server.pid!).toFixed(0)} MB (heap growth capped in server/plugins/heap-growth.ts); plain reads ${plainTimes.map(t => t.toFixed(0)).join(', ')} ms`)
   console.log(`(f) error map of that run                      ${(mapRead.ms / 1000).toFixed(2).padStart(6)} s   ${(mapRead.bytes / 1024).toFixed(0)} KB of JSON`)
   console.log(`(g) worst 50 failures, case table page          ${(pageRead.ms / 1000).toFixed(2).padStart(6)} s`)
   console.log(`    targets: (e) under 5 s and under 600 MB peak RSS; counts ${JSON.stringify(body.run!.counts)}`)
