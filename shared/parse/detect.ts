@@ -4,7 +4,7 @@
  * - JSON when the first non-blank character is `[` or `{`.
  * - Otherwise each candidate delimiter (tab, comma, semicolon, pipe) is
  *   counted, outside double quotes, on up to 200 non-blank, non-comment
- *   records. A candidate fits when it occurs in at least 90% of them and at
+ *   records (comment lines before them, however many, are skipped). A candidate fits when it occurs in at least 90% of them and at
  *   least half share the same count (bad rows must not hide the format). The
  *   largest such share wins; ties go in the order listed. Nothing fits:
  *   whitespace columns.
@@ -41,26 +41,37 @@ export function detectFormat(text: string, options: ParseOptions): Detected {
   return { format: best.delimiter === '\t' ? 'tsv' : 'csv', delimiter: best.delimiter }
 }
 
-/** Records of the sample, split at line ends outside double quotes. */
+const COMMENT = /^(?:[#!%]|\/\/)/
+
+/**
+ * Records of the sample, split at line ends outside double quotes: up to
+ * SAMPLE_LINES non-blank, non-comment records or SAMPLE_CHARS of them. Comment
+ * lines are skipped without counting, so a long log header before the table
+ * (a solver's run log, say) does not leave the sample without a data row.
+ */
 function sampleLines(text: string): string[] {
   const out: string[] = []
-  const sample = text.slice(0, SAMPLE_CHARS)
+  let kept = 0
   let quoted = false
   let start = 0
   const push = (end: number): void => {
-    const rec = sample.slice(start, end)
+    const rec = text.slice(start, end)
     const t = rec.trim()
-    if (t !== '' && !/^(?:[#!%]|\/\/)/.test(t)) out.push(rec)
+    if (t !== '' && !COMMENT.test(t)) {
+      out.push(rec)
+      kept += rec.length
+    }
   }
-  for (let i = 0; i < sample.length && out.length < SAMPLE_LINES; i++) {
-    const c = sample.charCodeAt(i)
+  let i = 0
+  for (; i < text.length && out.length < SAMPLE_LINES && kept < SAMPLE_CHARS; i++) {
+    const c = text.charCodeAt(i)
     if (c === 34) quoted = !quoted
     else if ((c === 10 || c === 13) && !quoted) { push(i); start = i + 1 }
   }
-  if (out.length < SAMPLE_LINES && start < sample.length) push(sample.length)
+  if (i === text.length && start < text.length && out.length < SAMPLE_LINES) push(text.length)
   // An unbalanced quote would hide every later line end; judge by lines then.
   if (quoted) {
-    return sample.split(/\r\n|\r|\n/).filter((l) => l.trim() !== '' && !/^\s*(?:[#!%]|\/\/)/.test(l)).map((l) => l.replace(/"/g, ''))
+    return text.slice(0, SAMPLE_CHARS).split(/\r\n|\r|\n/).filter(l => l.trim() !== '' && !COMMENT.test(l.trim())).slice(0, SAMPLE_LINES).map(l => l.replace(/"/g, ''))
   }
   return out
 }

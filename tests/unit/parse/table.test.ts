@@ -22,6 +22,16 @@ describe('format and delimiter detection', () => {
     expect(t.errorCount).toBe(0)
   })
 
+  it('finds the table behind a long header of comment lines', () => {
+    // 400 KB of a run log (past the 256 KB sample) before the first data row
+    const log = Array.from({ length: 8000 }, (_, i) => `# step ${i}: residual 1.0e-12, converged in 4 iterations`).join('\n')
+    const t = table(`${log}\nn,x,H\n0,0.5,1\n4,0.5,1\n`)
+    expect(log.length).toBeGreaterThan(256 * 1024)
+    expect(t.format).toBe('csv')
+    expect(t.columns).toEqual(['n', 'x', 'H'])
+    expect(raws(t)).toEqual([['0', '0.5', '1'], ['4', '0.5', '1']])
+  })
+
   it('is not fooled by a few rows with the wrong count', () => {
     const t = table('n,x,H\n0,0.5,1\n1,0.5\n2,0.5,-1,9\n5,0.5,41\n')
     expect(t.format).toBe('csv')
