@@ -152,6 +152,60 @@ describe('submit a table and read the run', () => {
     await page.close()
   })
 
+  it('shows how much of the table has been sent, for the preview and for judging', async () => {
+    const page = await browser.context.newPage()
+    await browser.context.clearCookies()
+    const qa = demoUser('qa')
+    await signInThroughPage(page, qa.email, qa.password)
+    await gotoReady(page, '/submit')
+    await page.getByLabel('Code', { exact: true }).selectOption('oscillite')
+    await page.getByLabel('New version label').fill(unique('9.9.1-slow'))
+    await page.getByLabel('Reference set').selectOption(String(setId))
+    // a slow line, so that sending the table takes a few seconds
+    const cdp = await browser.context.newCDPSession(page)
+    await cdp.send('Network.enable')
+    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: 400_000 })
+    // the same table behind 1.2 MB of comment lines, as a solver's log header might be
+    const padding = Array.from({ length: 15_000 }, (_, i) => `# run log ${String(i).padStart(6, '0')}: ${'step completed '.repeat(4)}`).join('\n')
+    const body = Buffer.from(`${padding}\n${outputTable()}`)
+    expect(body.length).toBeGreaterThan(1_000_000)
+
+    /** The progress values shown while `testId` is on the page, until `done` resolves. */
+    async function watchProgress(testId: string, done: Promise<unknown>) {
+      const seen: Array<{ sent: number, total: number, text: string }> = []
+      let finished = false
+      void done.finally(() => { finished = true })
+      while (!finished) {
+        const bar = page.getByTestId(testId)
+        if (await bar.count()) {
+          const [sent, total, text] = await Promise.all([bar.getAttribute('data-sent'), bar.getAttribute('data-total'), bar.innerText()]).catch(() => [null, null, ''])
+          if (sent !== null && total !== null) {
+            seen.push({ sent: Number(sent), total: Number(total), text: text ?? '' })
+            // a picture of the bar partway, for a person to look at
+            if (seen.length === 3) await bar.screenshot({ path: join(SCREENSHOTS, `submit-${testId}-partway.png`) }).catch(() => {})
+          }
+        }
+        await new Promise(r => setTimeout(r, 100))
+      }
+      return seen
+    }
+
+    await page.getByTestId('file-input').setInputFiles({ name: 'slow.csv', mimeType: 'text/csv', buffer: body })
+    const previewSeen = await watchProgress('preview-busy', page.getByTestId('mapping-preview').waitFor({ timeout: 60_000 }))
+    const partway = previewSeen.filter(p => p.sent > 0 && p.sent < p.total)
+    expect(partway.length, JSON.stringify(previewSeen.slice(0, 5))).toBeGreaterThan(0)
+    expect(partway[0]!.text).toMatch(/Sending the table to read its columns · \d+ % \(\d\.\d of 1\.\d MB\)/)
+    await page.screenshot({ path: join(SCREENSHOTS, 'submit-preview-sent-1280.png') })
+
+    await page.getByTestId('judge').click()
+    const judgeSeen = await watchProgress('judge-progress', page.waitForURL(/\/runs\/\d+$/, { timeout: 60_000 }))
+    expect(judgeSeen.some(p => p.sent > 0 && p.sent < p.total)).toBe(true)
+    const sentValues = judgeSeen.map(p => p.sent)
+    expect(sentValues).toEqual([...sentValues].sort((a, b) => a - b))
+    await cdp.send('Network.emulateNetworkConditions', { offline: false, latency: 0, downloadThroughput: -1, uploadThroughput: -1 })
+    await page.close()
+  })
+
   it('the same file, dropped on the zone, for the same version and set is recognised, not judged twice', async () => {
     expect(runPath).toMatch(/^\/runs\/\d+$/)
     const page = await browser.context.newPage()
