@@ -9,7 +9,7 @@
 // is rolled back.
 import { Readable } from 'node:stream'
 import { and, eq, isNull } from 'drizzle-orm'
-import { drizzle } from 'drizzle-orm/mysql2'
+import { drizzle, type MySql2Database } from 'drizzle-orm/mysql2'
 import type { PoolConnection, ResultSetHeader } from 'mysql2/promise'
 import type { BuildEnvironment, ReferenceSet } from '../database/schema'
 import type { JudgedRun } from './submissions'
@@ -63,37 +63,72 @@ export interface StoreInput {
   tokenId: number | null
 }
 
-export async function storeRun(input: StoreInput): Promise<{ id: number, counts: Record<string, number> }> {
+/** True for MariaDB's duplicate-key error (1062), as mysql2 raises it or as Drizzle wraps it. */
+function isDuplicateKey(e: unknown): boolean {
+  const err = e as { code?: string, cause?: { code?: string } }
+  return err?.code === 'ER_DUP_ENTRY' || err?.cause?.code === 'ER_DUP_ENTRY'
+}
+
+type Tx = MySql2Database<typeof schema>
+
+/**
+ * The run's version, in the run's transaction: made when new; otherwise
+ * locked and checked against this submission's build (shared/domain/build.ts),
+ * with the fields it lacks filled in. A version made a moment ago by a
+ * submission running beside this one counts as existing: our insert waits for
+ * that transaction, then meets the version's unique key.
+ */
+async function settleVersion(tx: Tx, input: StoreInput): Promise<number> {
+  const v = schema.versions
+  if (input.versionId === null) {
+    try {
+      const [made] = await tx.insert(v).values({ codeId: input.codeId, label: input.versionLabel, commitId: input.commit ?? '', environment: input.environment ?? {} }).$returningId()
+      await recordAudit(tx, input.actor, 'create-version', 'version', made!.id, { label: input.versionLabel })
+      return made!.id
+    }
+    catch (e) {
+      if (!isDuplicateKey(e)) throw e
+    }
+  }
+  else if (!input.fillsBuild) return input.versionId
+  // fields are only ever added: lock the version and check against what it records now
+  const [now] = await tx.select({ id: v.id, commitId: v.commitId, environment: v.environment }).from(v)
+    .where(and(eq(v.codeId, input.codeId), eq(v.label, input.versionLabel))).for('update')
+  const { conflicts, filled } = reconcileBuild({ commitId: now!.commitId, environment: now!.environment as Environment }, { commit: input.commit, environment: input.environment as Environment | undefined })
+  if (conflicts.length) throw buildDiffers(input.versionLabel, conflicts)
+  if (filled) {
+    await tx.update(v).set(filled).where(eq(v.id, now!.id))
+    await recordAudit(tx, input.actor, 'complete-version-build', 'version', now!.id, { label: input.versionLabel, before: { commitId: now!.commitId, environment: now!.environment }, after: filled })
+  }
+  return now!.id
+}
+
+export async function storeRun(input: StoreInput): Promise<{ id: number, counts: Record<string, number>, duplicate: boolean }> {
   const conn = await usePool().getConnection()
   const tx = drizzle({ client: conn, schema, mode: 'default' })
   const clock = stepClock()
   await conn.beginTransaction()
   try {
-    let versionId = input.versionId
-    if (!versionId) {
-      const [v] = await tx.insert(schema.versions).values({ codeId: input.codeId, label: input.versionLabel, commitId: input.commit ?? '', environment: input.environment ?? {} }).$returningId()
-      versionId = v!.id
-      await recordAudit(tx, input.actor, 'create-version', 'version', versionId, { label: input.versionLabel })
-    }
-    else if (input.fillsBuild) {
-      // fields are only ever added: lock the version and check again against what it records now
-      const v = schema.versions
-      const [now] = await tx.select({ commitId: v.commitId, environment: v.environment }).from(v).where(eq(v.id, versionId)).for('update')
-      const { conflicts, filled } = reconcileBuild({ commitId: now!.commitId, environment: now!.environment as Environment }, { commit: input.commit, environment: input.environment as Environment | undefined })
-      if (conflicts.length) throw buildDiffers(input.versionLabel, conflicts)
-      if (filled) {
-        await tx.update(v).set(filled).where(eq(v.id, versionId))
-        await recordAudit(tx, input.actor, 'complete-version-build', 'version', versionId, { label: input.versionLabel, before: now, after: filled })
-      }
-    }
+    const versionId = await settleVersion(tx, input)
     // counts and figures are filled in once every case is judged, in this same transaction
-    const [run] = await tx.insert(schema.runs).values({
-      versionId, setId: input.set.id,
-      submittedBy: input.actor.id, tokenId: input.tokenId,
-      fileName: input.fileName.slice(0, 255), fileSha256: input.sha, fileSize: input.data.length,
-      columnMapping: input.mapping, counts: {}, regions: {},
-    }).$returningId()
-    const runId = run!.id
+    let runId: number
+    try {
+      const [run] = await tx.insert(schema.runs).values({
+        versionId, setId: input.set.id,
+        submittedBy: input.actor.id, tokenId: input.tokenId,
+        fileName: input.fileName.slice(0, 255), fileSha256: input.sha, fileSize: input.data.length,
+        columnMapping: input.mapping, counts: {}, regions: {},
+      }).$returningId()
+      runId = run!.id
+    }
+    catch (e) {
+      if (!isDuplicateKey(e)) throw e
+      // the same file for the same version and set, stored a moment ago by a submission running beside this one
+      const r = schema.runs
+      const [dup] = await tx.select({ id: r.id, counts: r.counts }).from(r).where(and(eq(r.versionId, versionId), eq(r.setId, input.set.id), eq(r.fileSha256, input.sha)))
+      await conn.rollback()
+      return { id: dup!.id, counts: dup!.counts as Record<string, number>, duplicate: true }
+    }
     clock('store: run row')
 
     // the raw file goes in while the first chunk is judged; the chunks queue behind it
@@ -151,7 +186,7 @@ export async function storeRun(input: StoreInput): Promise<{ id: number, counts:
     }
     await conn.commit()
     clock('store: commit')
-    return { id: runId, counts: overall.counts }
+    return { id: runId, counts: overall.counts, duplicate: false }
   }
   catch (e) {
     await conn.rollback().catch(() => {})

@@ -94,3 +94,40 @@ describe('build details of an existing version', () => {
     expect((await versionRow(label)).commit_id).toBe('')
   })
 })
+
+describe('a new version from two pipelines at once', () => {
+  it('makes one version, and stores both runs', async () => {
+    const label = unique('build-race')
+    const both = await Promise.all([
+      send(label, setA, { commit: 'a1b2c3', environment: JSON.stringify(env) }),
+      send(label, setB, { commit: 'a1b2c3', environment: JSON.stringify(env) }),
+    ])
+    expect(both.map(r => r.status), JSON.stringify(both.map(r => r.body))).toEqual([201, 201])
+    const v = await versionRow(label)
+    expect(await runCount(v.id)).toBe(2)
+    const audit = await dbQuery<{ action: string }>('SELECT action FROM audit_log WHERE object_type = ? AND object_id = ?', ['version', String(v.id)])
+    expect(audit.map(a => a.action)).toEqual(['create-version'])
+  })
+
+  it('stores the same file sent twice at once as one run, and answers the second as a repeat', async () => {
+    const label = unique('build-race-same')
+    const content = table(unique('same'))
+    const post = () => upload(qa, '/api/runs', { code: 'oscillite', version: label, setId: String(setA.id) }, { name: 'same.csv', content })
+    const both = await Promise.all([post(), post()])
+    expect(both.map(r => r.status).sort(), JSON.stringify(both.map(r => r.body))).toEqual([200, 201])
+    expect(both[0]!.body.run.id).toBe(both[1]!.body.run.id)
+    expect(both.map(r => r.body.duplicate).sort()).toEqual([false, true])
+    expect(await runCount((await versionRow(label)).id)).toBe(1)
+  })
+
+  it('refuses the second when the two name different builds', async () => {
+    const label = unique('build-race-diff')
+    const both = await Promise.all([
+      send(label, setA, { commit: 'a1b2c3' }),
+      send(label, setB, { commit: 'ffff00' }),
+    ])
+    expect(both.map(r => r.status).sort(), JSON.stringify(both.map(r => r.body))).toEqual([201, 409])
+    const v = await versionRow(label)
+    expect(await runCount(v.id)).toBe(1)
+  })
+})

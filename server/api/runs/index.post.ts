@@ -35,6 +35,6 @@ export default defineEventHandler(async (event) => {
     fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: caller.token?.id ?? null,
   })
   clock('judge and store')
-  setResponseStatus(event, 201)
-  return { run: stored, duplicate: false }
+  setResponseStatus(event, stored.duplicate ? 200 : 201)
+  return { run: { id: stored.id, counts: stored.counts }, duplicate: stored.duplicate }
 })
