@@ -5,6 +5,7 @@ import { beforeAll, describe, expect, it } from 'vitest'
 import { type Client, signedIn, unique } from '../support/api'
 import { hermiteDouble, hermiteSet, readySet, upload } from '../support/sets'
 import { dbQuery } from '../support/db'
+import { LARGE_TABLE_BYTES } from '../../server/utils/large-table-turn'
 
 const NS = [0, 4, 8, 12]
 const XS = ['-1', '-0.5', '0', '0.5', '1']
@@ -129,5 +130,20 @@ describe('a new version from two pipelines at once', () => {
     expect(both.map(r => r.status).sort(), JSON.stringify(both.map(r => r.body))).toEqual([201, 409])
     const v = await versionRow(label)
     expect(await runCount(v.id)).toBe(1)
+  })
+})
+
+describe('large tables at once', () => {
+  it('judges two large tables sent together, taking turns, and stores both', async () => {
+    // over LARGE_TABLE_BYTES (server/utils/large-table-turn.ts) through a long log header
+    const log = Array.from({ length: 60_000 }, (_, i) => `# iteration ${i}: residual below tolerance`).join('\n')
+    const big = (salt: string) => `${log}\n${table(salt)}`
+    expect(big('x').length).toBeGreaterThan(LARGE_TABLE_BYTES)
+    const label = unique('build-large')
+    const post = (set: { id: number }) => upload(qa, '/api/runs', { code: 'oscillite', version: label, setId: String(set.id) }, { name: 'big.csv', content: big(unique('big')) })
+    const both = await Promise.all([post(setA), post(setB)])
+    expect(both.map(r => r.status), JSON.stringify(both.map(r => r.body))).toEqual([201, 201])
+    expect(both.map(r => r.body.run.counts.pass)).toEqual([20, 20])
+    expect(await runCount((await versionRow(label)).id)).toBe(2)
   })
 })

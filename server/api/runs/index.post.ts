@@ -18,23 +18,27 @@ export default defineEventHandler(async (event) => {
     const dup = await findDuplicateRun(version.id, set.id, sha)
     if (dup) return { run: { id: dup.id, counts: dup.counts }, duplicate: true }
   }
-  const clock = stepClock()
-  // the cases are read while the table is parsed; a refused table drops them
-  const loading = loadCases(set.id)
-  loading.catch(() => {})
-  await new Promise(resolve => setImmediate(resolve)) // let the query go out before the parse takes the CPU
-  const table = parseUploadedTable(upload.data)
-  clock('parse')
-  const { index, mapping } = resolveMapping(set, table, fields.mapping, (c, p) => suggestColumnMapping(c, p).mapping)
-  const cases = await loading
-  clock('load cases')
-  const judged = judgeTable(set, cases, table, index)
-  const actor = caller.actor
-  const stored = await storeRun({
-    set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment, fillsBuild: build.fills,
-    fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: caller.token?.id ?? null,
+  // a large table waits for its turn (server/utils/large-table-turn.ts)
+  const stored = await inLargeTableTurn(upload.data.length, async () => {
+    const clock = stepClock()
+    // the cases are read while the table is parsed; a refused table drops them
+    const loading = loadCases(set.id)
+    loading.catch(() => {})
+    await new Promise(resolve => setImmediate(resolve)) // let the query go out before the parse takes the CPU
+    const table = parseUploadedTable(upload.data)
+    clock('parse')
+    const { index, mapping } = resolveMapping(set, table, fields.mapping, (c, p) => suggestColumnMapping(c, p).mapping)
+    const cases = await loading
+    clock('load cases')
+    const judged = judgeTable(set, cases, table, index)
+    const actor = caller.actor
+    const run = await storeRun({
+      set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment, fillsBuild: build.fills,
+      fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: caller.token?.id ?? null,
+    })
+    clock('judge and store')
+    return run
   })
-  clock('judge and store')
   setResponseStatus(event, stored.duplicate ? 200 : 201)
   return { run: { id: stored.id, counts: stored.counts }, duplicate: stored.duplicate }
 })
