@@ -30,6 +30,7 @@ export default defineConfig({
           include: ['tests/browser/**/*.test.ts'],
           environment: 'node',
           globalSetup: ['tests/support/server-setup.ts'],
+          setupFiles: ['tests/support/browser-setup.ts'],
           fileParallelism: false,
           testTimeout: 120_000,
           hookTimeout: 120_000,

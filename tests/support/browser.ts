@@ -14,6 +14,9 @@ export const CHROMIUM_FLAGS = [
 
 export interface Session { context: BrowserContext, close: () => Promise<void> }
 
+/** Every browser context open now, for the screenshots taken when a test fails (browser-setup.ts). */
+export const openContexts = new Set<BrowserContext>()
+
 export async function openBrowser(): Promise<Session> {
   const profile = mkdtempSync(join(tmpdir(), 'plumbline-chromium-'))
   mkdirSync(SCREENSHOTS, { recursive: true })
@@ -24,9 +27,11 @@ export async function openBrowser(): Promise<Session> {
     viewport: { width: 1280, height: 900 },
     baseURL: BASE,
   })
+  openContexts.add(context)
   return {
     context,
     close: async () => {
+      openContexts.delete(context)
       await context.close()
       rmSync(profile, { recursive: true, force: true })
     },
