@@ -125,7 +125,8 @@ export async function storeRun(input: StoreInput): Promise<{ id: number, counts:
       if (!isDuplicateKey(e)) throw e
       // the same file for the same version and set, stored a moment ago by a submission running beside this one
       const r = schema.runs
-      const [dup] = await tx.select({ id: r.id, counts: r.counts }).from(r).where(and(eq(r.versionId, versionId), eq(r.setId, input.set.id), eq(r.fileSha256, input.sha)))
+      // (a locking read: it sees the other transaction's committed row whatever this one's snapshot)
+      const [dup] = await tx.select({ id: r.id, counts: r.counts }).from(r).where(and(eq(r.versionId, versionId), eq(r.setId, input.set.id), eq(r.fileSha256, input.sha))).for('update')
       await conn.rollback()
       return { id: dup!.id, counts: dup!.counts as Record<string, number>, duplicate: true }
     }
