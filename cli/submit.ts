@@ -119,7 +119,7 @@ function options(args: string[]) {
     }
   }
   return {
-    server: server!.replace(/\/+$/, ''), token: token!, file: positional[0]!, code: opts.code!, version: opts.version!, set: opts.set!,
+    server: server!.replace(/\/+$/, ''), token: token!, file: positional[0]!, code: opts.code!, version: opts.version!, set: opts.set!, setField: byId ? 'setId' : 'set',
     commit: opts.commit, envFile: opts['env-file'], mapping: opts.mapping, junit: opts.junit, json: opts.json === 'true',
   }
 }
@@ -150,7 +150,7 @@ export async function runSubmit(args: string[]): Promise<number> {
   const form = new FormData()
   form.append('code', o.code)
   form.append('version', o.version)
-  form.append(/^\d+$/.test(o.set) ? 'setId' : 'set', o.set)
+  form.append(o.setField, o.set)
   if (o.commit) form.append('commit', o.commit)
   if (o.envFile) form.append('environment', environmentFrom(o.envFile))
   if (o.mapping) form.append('mapping', o.mapping)

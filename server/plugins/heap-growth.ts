@@ -4,7 +4,7 @@ import { setFlagsFromString } from 'node:v8'
 // parsed table and cases), which V8 by default frees only once the heap has
 // grown well past its live size: two 100,000-row submissions back to back then
 // peaked at about 640 MB of RSS. Growing the heap by at most 2× between full
-// collections keeps that near 380 MB at no measurable cost in time
+// collections keeps that near 400 MB, with times within run-to-run noise
 // (bench/submission.ts). V8 reads this flag at each collection, so setting it
 // here covers the server however it is started.
 export default defineNitroPlugin(() => {

@@ -9,24 +9,16 @@ export const LARGE_TABLE_BYTES = 2 * 1024 * 1024
 /** A queue of turns: each `run` starts once every earlier one has settled. */
 export class TurnQueue {
   private tail: Promise<void> = Promise.resolve()
-  private waiting = 0
-
-  /** How many are queued or running. */
-  get length(): number {
-    return this.waiting
-  }
 
   async run<T>(work: () => Promise<T>): Promise<T> {
     const before = this.tail
     let done!: () => void
     this.tail = new Promise<void>((resolve) => { done = resolve })
-    this.waiting++
     try {
       await before
       return await work()
     }
     finally {
-      this.waiting--
       done()
     }
   }

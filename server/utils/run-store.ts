@@ -16,9 +16,8 @@ import type { JudgedRun } from './submissions'
 import type { CurrentUser } from './auth'
 import { LOAD_RESULTS, resultsTsv } from './load-data'
 import { queueRunFailureNotice } from '../mail/notifications'
-import { reconcileBuild } from '../../shared/domain/build'
 import type { Environment } from '../../shared/schemas/submission'
-import { buildDiffers } from './submissions'
+import { checkBuild } from './submissions'
 
 /**
  * Start loading one chunk. `sent` settles once the whole chunk has been
@@ -94,8 +93,7 @@ async function settleVersion(tx: Tx, input: StoreInput): Promise<number> {
   // fields are only ever added: lock the version and check against what it records now
   const [now] = await tx.select({ id: v.id, commitId: v.commitId, environment: v.environment }).from(v)
     .where(and(eq(v.codeId, input.codeId), eq(v.label, input.versionLabel))).for('update')
-  const { conflicts, filled } = reconcileBuild({ commitId: now!.commitId, environment: now!.environment as Environment }, { commit: input.commit, environment: input.environment as Environment | undefined })
-  if (conflicts.length) throw buildDiffers(input.versionLabel, conflicts)
+  const filled = checkBuild({ ...now!, label: input.versionLabel }, { commit: input.commit, environment: input.environment as Environment | undefined })
   if (filled) {
     await tx.update(v).set(filled).where(eq(v.id, now!.id))
     await recordAudit(tx, input.actor, 'complete-version-build', 'version', now!.id, { label: input.versionLabel, before: { commitId: now!.commitId, environment: now!.environment }, after: filled })

@@ -13,7 +13,7 @@ import type { summarizeRun } from '../../shared/compare'
 import { CATALOGUE, isFunctionId } from '../../shared/reference'
 import { inputKey, isCanonicalPlain } from '../../shared/grid/keys'
 import { submissionSchema, type Environment, type SubmissionFields } from '../../shared/schemas/submission'
-import { describeConflict, reconcileBuild, type BuildConflict } from '../../shared/domain/build'
+import { describeConflict, reconcileBuild, type RecordedBuild } from '../../shared/domain/build'
 import type { Criterion } from '../../shared/schemas/criterion'
 import type { ReferenceSet } from '../database/schema'
 
@@ -260,18 +260,17 @@ export async function findVersion(codeId: number, label: string) {
 /**
  * The build details of a submission for an existing version, against what the
  * version records (shared/domain/build.ts): a 409 naming each field that
- * contradicts it; otherwise whether the submission adds fields to record.
+ * contradicts it; otherwise the version's build with the fields it lacks
+ * filled in, or null when the submission adds nothing.
  */
-export function checkBuild(version: { label: string, commitId: string, environment: unknown }, fields: Pick<SubmissionFields, 'commit' | 'environment'>): { fills: boolean } {
+export function checkBuild(version: { label: string, commitId: string, environment: unknown }, fields: Pick<SubmissionFields, 'commit' | 'environment'>): RecordedBuild | null {
   const { conflicts, filled } = reconcileBuild({ commitId: version.commitId, environment: version.environment as Environment }, fields)
-  if (conflicts.length) throw buildDiffers(version.label, conflicts)
-  return { fills: filled !== null }
-}
-
-export function buildDiffers(label: string, conflicts: BuildConflict[]) {
-  return httpError(409, 'build_differs', `${conflicts.map(c => describeConflict(label, c)).join(' ')} A different build is a different version: submit it under a label of its own, or leave the field out.`, {
-    issues: conflicts.map(c => ({ field: c.field, message: describeConflict(label, c) })),
-  })
+  if (conflicts.length) {
+    throw httpError(409, 'build_differs', `${conflicts.map(c => describeConflict(version.label, c)).join(' ')} A different build is a different version: submit it under a label of its own, or leave the field out.`, {
+      issues: conflicts.map(c => ({ field: c.field, message: describeConflict(version.label, c) })),
+    })
+  }
+  return filled
 }
 
 export async function findDuplicateRun(versionId: number, setId: number, sha: string) {

@@ -4,8 +4,9 @@
  * - JSON when the first non-blank character is `[` or `{`.
  * - Otherwise each candidate delimiter (tab, comma, semicolon, pipe) is
  *   counted, outside double quotes, on up to 200 non-blank, non-comment
- *   records (comment lines before them, however many, are skipped). A candidate fits when it occurs in at least 90% of them and at
- *   least half share the same count (bad rows must not hide the format). The
+ *   records (comment lines before them, however many, are skipped). A
+ *   candidate fits when it occurs in at least 90% of them and at least half
+ *   share the same count (bad rows must not hide the format). The
  *   largest such share wins; ties go in the order listed. Nothing fits:
  *   whitespace columns.
  */

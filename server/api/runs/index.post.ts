@@ -13,7 +13,7 @@ export default defineEventHandler(async (event) => {
 
   const sha = sha256Hex(upload.data)
   const version = await findVersion(code.id, fields.version)
-  const build = version ? checkBuild(version, fields) : { fills: false }
+  const fillsBuild = version ? checkBuild(version, fields) !== null : false
   if (version) {
     const dup = await findDuplicateRun(version.id, set.id, sha)
     if (dup) return { run: { id: dup.id, counts: dup.counts }, duplicate: true }
@@ -33,7 +33,7 @@ export default defineEventHandler(async (event) => {
     const judged = judgeTable(set, cases, table, index)
     const actor = caller.actor
     const run = await storeRun({
-      set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment, fillsBuild: build.fills,
+      set, codeId: code.id, versionLabel: fields.version, versionId: version?.id ?? null, commit: fields.commit, environment: fields.environment, fillsBuild,
       fileName: upload.fileName, data: upload.data, sha, mapping, judged, actor, tokenId: caller.token?.id ?? null,
     })
     clock('judge and store')

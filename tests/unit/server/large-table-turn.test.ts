@@ -28,7 +28,6 @@ describe('a queue of turns', () => {
     const results = [q.run(a.work), q.run(b.work), q.run(c.work)]
     await tick()
     expect(log).toEqual(['a starts'])
-    expect(q.length).toBe(3)
     b.finish() // finishing early changes nothing: b has not started
     await tick()
     expect(log).toEqual(['a starts'])
@@ -37,7 +36,6 @@ describe('a queue of turns', () => {
     expect(log).toEqual(['a starts', 'a ends', 'b starts', 'b ends', 'c starts'])
     c.finish()
     expect(await Promise.all(results)).toEqual(['a', 'b', 'c'])
-    expect(q.length).toBe(0)
   })
 
   it('passes the turn on when a piece of work fails', async () => {
